@@ -1,0 +1,179 @@
+import {
+  cohomology,
+  computeCohomology,
+  formatProblem,
+  ModelError,
+  parseFieldOption,
+  readModel,
+  sections,
+  type FieldSpec,
+  type Method,
+} from '../shared/engine';
+import { ProblemList } from '../shared/engine/model/Problem';
+
+export interface CliIo {
+  readFile(path: string): string;
+  stdout(text: string): void;
+  stderr(text: string): void;
+}
+
+export const USAGE = `usage:
+  gluefield cohomology FILE [--method morse|direct] [--field rational|real|prime:P] [--tolerance T] [--no-split]
+  gluefield check FILE [--field rational|real|prime:P]
+  gluefield sections FILE --degree K [--method morse|direct] [--field rational|real|prime:P]`;
+
+/** Bad input at the command line or in the file: exit status 2. */
+class UsageError extends Error {}
+
+interface Args {
+  command: string;
+  file: string;
+  method: Method;
+  field?: FieldSpec;
+  degree?: number;
+  split: boolean;
+}
+
+/**
+ * The command line as a function: returns the exit status, writes through
+ * `io`. 0 success, 2 bad input (one `error:` line, nothing on stdout),
+ * 1 internal failure.
+ */
+export function runCli(argv: string[], io: CliIo): number {
+  try {
+    const args = parseArgs(argv);
+    const text = readText(io, args.file);
+    const t0 = performance.now();
+    const json = parseJson(text, args.file);
+    const parseMs = performance.now() - t0;
+    switch (args.command) {
+      case 'cohomology': {
+        const report = cohomology(json, { method: args.method, field: args.field, splitBlocks: args.split });
+        report.ms.parse = Math.round(parseMs * 10) / 10;
+        report.ms.total = Math.round((report.ms.total + parseMs) * 10) / 10;
+        io.stdout(JSON.stringify(report) + '\n');
+        return 0;
+      }
+      case 'sections': {
+        if (args.degree === undefined) throw new UsageError('sections needs --degree K');
+        const report = sections(json, args.degree, { method: args.method, field: args.field, splitBlocks: args.split });
+        io.stdout(JSON.stringify(report) + '\n');
+        return 0;
+      }
+      case 'check':
+        return check(json, args, io);
+      default:
+        throw new UsageError(`unknown command "${args.command}"`);
+    }
+  } catch (err) {
+    if (err instanceof UsageError) {
+      io.stderr(`error: ${err.message}\n`);
+      return 2;
+    }
+    if (err instanceof ModelError) {
+      io.stderr(`error: ${oneLine(err.message)}\n`);
+      return 2;
+    }
+    if (err instanceof RangeError && /degree .* is outside/.test(err.message)) {
+      io.stderr(`error: --degree: ${err.message}\n`);
+      return 2;
+    }
+    const message = err instanceof Error ? err.message : String(err);
+    io.stderr(`error: internal failure: ${oneLine(message)}\n`);
+    return 1;
+  }
+}
+
+function check(json: unknown, args: Args, io: CliIo): number {
+  const read = readModel(json, { field: args.field });
+  if (!read.sheaf) {
+    io.stdout(JSON.stringify({ valid: false, problems: read.problems }) + '\n');
+    io.stderr(`error: ${oneLine(formatProblem(read.problems[0]))}\n`);
+    return 2;
+  }
+  const sheaf = read.sheaf;
+  const { report } = computeCohomology(sheaf, { method: 'morse' });
+  io.stdout(
+    JSON.stringify({
+      valid: true,
+      name: sheaf.name ?? null,
+      field: sheaf.field.label,
+      dimension: sheaf.complex.dimension,
+      cells: report.cells,
+      cochainDims: report.cochainDims,
+      euler: report.euler,
+      explicitMaps: sheaf.maps.filter((m) => m.scalar === undefined || m.rows > 0).length,
+      problems: [],
+    }) + '\n',
+  );
+  return 0;
+}
+
+function parseArgs(argv: string[]): Args {
+  const [command, ...rest] = argv;
+  if (!command || command === '--help' || command === '-h') throw new UsageError(`no command given\n${USAGE}`);
+  let file: string | undefined;
+  let method: Method = 'morse';
+  let fieldText: string | undefined;
+  let tolerance: number | undefined;
+  let degree: number | undefined;
+  let split = true;
+  for (let i = 0; i < rest.length; i++) {
+    const a = rest[i];
+    const value = () => {
+      const v = rest[++i];
+      if (v === undefined) throw new UsageError(`${a} needs a value`);
+      return v;
+    };
+    if (a === '--method') {
+      const m = value();
+      if (m !== 'morse' && m !== 'direct') throw new UsageError(`--method: "${m}" is not morse or direct`);
+      method = m;
+    } else if (a === '--field') fieldText = value();
+    else if (a === '--tolerance') {
+      const t = Number(value());
+      if (!(t > 0 && t < 1)) throw new UsageError('--tolerance must be a number between 0 and 1');
+      tolerance = t;
+    } else if (a === '--degree') {
+      const d = value();
+      if (!/^\d+$/.test(d)) throw new UsageError(`--degree: "${d}" is not a non-negative integer`);
+      degree = Number(d);
+    } else if (a === '--no-split') split = false;
+    else if (a.startsWith('--')) throw new UsageError(`unknown option ${a}`);
+    else if (file === undefined) file = a;
+    else throw new UsageError(`unexpected argument "${a}"`);
+  }
+  if (!file) throw new UsageError(`${command} needs a FILE`);
+  let field: FieldSpec | undefined;
+  if (fieldText !== undefined) {
+    const problems = new ProblemList();
+    field = parseFieldOption(fieldText, problems, tolerance);
+    if (!field) throw new UsageError(formatProblem(problems.items[0]));
+  } else if (tolerance !== undefined) {
+    field = { kind: 'real', tolerance };
+  }
+  return { command, file, method, field, degree, split };
+}
+
+function readText(io: CliIo, file: string): string {
+  try {
+    return io.readFile(file);
+  } catch (err) {
+    const code = (err as { code?: string }).code;
+    const why = code === 'ENOENT' ? 'no such file' : code === 'EISDIR' ? 'is a directory' : code ?? 'unreadable';
+    throw new UsageError(`cannot read ${file}: ${why}`);
+  }
+}
+
+function parseJson(text: string, file: string): unknown {
+  try {
+    return JSON.parse(text);
+  } catch (err) {
+    const detail = err instanceof Error ? err.message : String(err);
+    throw new UsageError(`${file} is not valid JSON: ${oneLine(detail)}`);
+  }
+}
+
+function oneLine(s: string): string {
+  return s.replace(/\s*\n\s*/g, ' ');
+}

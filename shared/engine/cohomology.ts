@@ -1,0 +1,34 @@
+import type { CohomologyReport, Method } from './CohomologyReport';
+import { computeCohomology } from './computeCohomology';
+import { computeSections, type SectionsReport } from './computeSections';
+import type { FieldSpec } from './fields/FieldSpec';
+import { readModelOrThrow } from './model/readModel';
+import type { Control } from './reduce/Cancelled';
+
+export interface CohomologyOptions {
+  method?: Method;
+  field?: FieldSpec;
+  splitBlocks?: boolean;
+  control?: Control;
+}
+
+/**
+ * The whole job on a parsed model file: validate, reduce, solve.
+ * Throws ModelError (with located problems) on invalid input.
+ */
+export function cohomology(json: unknown, options: CohomologyOptions = {}): CohomologyReport {
+  const t0 = performance.now();
+  const sheaf = readModelOrThrow(json, { field: options.field });
+  const t1 = performance.now();
+  const { report } = computeCohomology(sheaf, options);
+  report.ms.build = Math.round((report.ms.build + t1 - t0) * 10) / 10;
+  report.ms.total = Math.round((report.ms.total + t1 - t0) * 10) / 10;
+  return report;
+}
+
+/** A basis of H^degree on the original cells, for a parsed model file. */
+export function sections(json: unknown, degree: number, options: CohomologyOptions = {}): SectionsReport {
+  const sheaf = readModelOrThrow(json, { field: options.field });
+  const run = computeCohomology(sheaf, options);
+  return computeSections(sheaf, run, degree).report;
+}

@@ -1,0 +1,90 @@
+import { SimplexTable } from './SimplexTable';
+
+/**
+ * A finite simplicial complex closed under faces, every simplex oriented by
+ * increasing vertex id.
+ *
+ * Vertices are renumbered densely in increasing id order (so orientation by
+ * dense index equals orientation by id). Incidences are flat typed arrays:
+ * `faces[k][s*(k+1)+i]` is the (k-1)-face of k-simplex s opposite its i-th
+ * vertex, with incidence number (-1)^i. Cofaces are the transpose in CSR
+ * form; an entry of `cofaceEntry[k]` is a position in `faces[k+1]`, so the
+ * coface is `entry / (k+2)` and the sign comes from `entry % (k+2)`.
+ */
+export interface SimplicialComplex {
+  /** Top dimension, -1 for the empty complex. */
+  readonly dimension: number;
+  /** Original vertex id of each dense vertex index. */
+  readonly vertexIds: Float64Array;
+  /** Per dimension k: the k-simplices as tuples of dense vertex indices. */
+  readonly simplices: SimplexTable[];
+  readonly faces: Int32Array[];
+  readonly cofacePtr: Int32Array[];
+  readonly cofaceEntry: Int32Array[];
+}
+
+export function cellCount(complex: SimplicialComplex, k: number): number {
+  return complex.simplices[k]?.size ?? 0;
+}
+
+/**
+ * Close a list of simplices (each a sorted tuple of dense vertex indices,
+ * grouped by dimension) under faces and index all incidences.
+ * `listed[k]` holds the listed k-simplices flat, k+1 entries each.
+ */
+export function buildComplex(listed: Int32Array[], vertexIds: Float64Array): SimplicialComplex {
+  const top = listed.length - 1;
+  const simplices: SimplexTable[] = [];
+  for (let k = 0; k <= top; k++) {
+    const n = listed[k].length / (k + 1);
+    // Each k-simplex contributes k+1 faces; a closed complex has fewer distinct ones.
+    const expectFromAbove = k < top ? (listed[k + 1].length / (k + 2)) * (k + 2) : 0;
+    simplices.push(new SimplexTable(k + 1, n + expectFromAbove));
+  }
+  for (let k = top; k >= 0; k--) {
+    const table = simplices[k];
+    const list = listed[k];
+    for (let off = 0; off < list.length; off += k + 1) table.insert(list, off);
+  }
+  const faces: Int32Array[] = [new Int32Array(0)];
+  const buf = new Int32Array(Math.max(top, 1));
+  for (let k = top; k >= 1; k--) {
+    const table = simplices[k];
+    const lower = simplices[k - 1];
+    const n = table.size;
+    const verts = table.vertices;
+    const f = new Int32Array(n * (k + 1));
+    for (let s = 0; s < n; s++) {
+      const base = s * (k + 1);
+      for (let i = 0; i <= k; i++) {
+        let w = 0;
+        for (let j = 0; j <= k; j++) if (j !== i) buf[w++] = verts[base + j];
+        f[base + i] = lower.insert(buf, 0);
+      }
+    }
+    faces[k] = f;
+  }
+  const cofacePtr: Int32Array[] = [];
+  const cofaceEntry: Int32Array[] = [];
+  for (let k = 0; k < top; k++) {
+    const n = simplices[k].size;
+    const f = faces[k + 1];
+    const ptr = new Int32Array(n + 1);
+    for (let e = 0; e < f.length; e++) ptr[f[e] + 1]++;
+    for (let s = 0; s < n; s++) ptr[s + 1] += ptr[s];
+    const fill = ptr.slice(0, n);
+    const entry = new Int32Array(f.length);
+    for (let e = 0; e < f.length; e++) entry[fill[f[e]]++] = e;
+    cofacePtr.push(ptr);
+    cofaceEntry.push(entry);
+  }
+  return { dimension: top, vertexIds, simplices, faces, cofacePtr, cofaceEntry };
+}
+
+/** Original vertex ids of k-simplex s, increasing. */
+export function simplexIds(complex: SimplicialComplex, k: number, s: number): number[] {
+  const t = complex.simplices[k];
+  const ids: number[] = [];
+  for (let i = 0; i <= k; i++) ids.push(complex.vertexIds[t.vertex(s, i)]);
+  return ids;
+}

@@ -1,0 +1,146 @@
+import { buildComplex, type SimplicialComplex } from '../complex/SimplicialComplex';
+import type { ProblemList } from './Problem';
+
+/**
+ * Validate the `simplices` list and build its closure. Vertex ids may be any
+ * non-negative safe integers; they are renumbered densely in increasing order.
+ */
+export function readSimplices(raw: unknown, problems: ProblemList): SimplicialComplex | undefined {
+  if (!Array.isArray(raw)) {
+    problems.add('simplices', 'must be a list of simplices, each a list of vertex ids');
+    return undefined;
+  }
+  let total = 0;
+  let top = -1;
+  for (let i = 0; i < raw.length && !problems.full; i++) {
+    const s = raw[i];
+    if (!Array.isArray(s) || s.length === 0) {
+      problems.add(`simplices[${i}]`, 'must be a non-empty list of vertex ids');
+      continue;
+    }
+    for (let j = 0; j < s.length; j++) {
+      const v = s[j];
+      if (typeof v !== 'number' || !Number.isSafeInteger(v) || v < 0) {
+        problems.add(`simplices[${i}]`, `vertex ${JSON.stringify(v)} is not a non-negative integer id`);
+        break;
+      }
+      for (let q = 0; q < j; q++) {
+        if (s[q] === v) {
+          problems.add(`simplices[${i}]`, `vertex ${v} appears twice in [${s.join(',')}]`);
+          break;
+        }
+      }
+    }
+    total += s.length;
+    if (s.length - 1 > top) top = s.length - 1;
+  }
+  if (problems.any) return undefined;
+
+  const all = new Float64Array(total);
+  let w = 0;
+  for (const s of raw as number[][]) for (const v of s) all[w++] = v;
+  all.sort();
+  let unique = 0;
+  for (let i = 0; i < all.length; i++) if (i === 0 || all[i] !== all[i - 1]) all[unique++] = all[i];
+  const vertexIds = all.slice(0, unique);
+  const dense = denseIndexer(vertexIds);
+
+  const counts = new Array<number>(top + 1).fill(0);
+  for (const s of raw as number[][]) counts[s.length - 1]++;
+  const listed = counts.map((c, k) => new Int32Array(c * (k + 1)));
+  const fill = new Array<number>(top + 1).fill(0);
+  for (const s of raw as number[][]) {
+    const k = s.length - 1;
+    const out = listed[k];
+    const base = fill[k];
+    for (let j = 0; j <= k; j++) out[base + j] = dense(s[j]);
+    sortSmall(out, base, k + 1);
+    fill[k] += k + 1;
+  }
+  return buildComplex(listed, vertexIds);
+}
+
+/** Dense index of an original vertex id (sorted ids), or -1 when absent. */
+export function denseIndexer(sortedIds: Float64Array): (id: number) => number {
+  const n = sortedIds.length;
+  const max = n ? sortedIds[n - 1] : 0;
+  if (max < 2 ** 31 && max <= 4 * n + 1_000_000) {
+    // A direct table is a few MB at most and turns lookups into one read.
+    const table = new Int32Array(max + 1).fill(-1);
+    for (let i = 0; i < n; i++) table[sortedIds[i]] = i;
+    return (id) => (id >= 0 && id <= max && Number.isInteger(id) ? table[id] : -1);
+  }
+  return (id) => {
+    let lo = 0;
+    let hi = n - 1;
+    while (lo <= hi) {
+      const mid = (lo + hi) >> 1;
+      const v = sortedIds[mid];
+      if (v === id) return mid;
+      if (v < id) lo = mid + 1;
+      else hi = mid - 1;
+    }
+    return -1;
+  };
+}
+
+function sortSmall(a: Int32Array, off: number, len: number): void {
+  for (let i = off + 1; i < off + len; i++) {
+    const v = a[i];
+    let j = i - 1;
+    while (j >= off && a[j] > v) {
+      a[j + 1] = a[j];
+      j--;
+    }
+    a[j + 1] = v;
+  }
+}
+
+/** A cell named by vertex ids in the file, resolved against the complex. */
+export interface CellRef {
+  k: number;
+  index: number;
+  /** Dense vertex indices, increasing. */
+  dense: Int32Array;
+}
+
+/**
+ * Resolve a cell written as a list of vertex ids (any order). Reports a
+ * problem at `where` and returns undefined when it is not in the complex.
+ */
+export function resolveCell(
+  complex: SimplicialComplex,
+  dense: (id: number) => number,
+  raw: unknown,
+  problems: ProblemList,
+  where: string,
+): CellRef | undefined {
+  if (!Array.isArray(raw) || raw.length === 0 || raw.some((v) => typeof v !== 'number' || !Number.isSafeInteger(v) || v < 0)) {
+    problems.add(where, `${JSON.stringify(raw)} is not a list of vertex ids`);
+    return undefined;
+  }
+  const ids = raw as number[];
+  const name = `[${ids.join(',')}]`;
+  const k = ids.length - 1;
+  const d = new Int32Array(ids.length);
+  for (let i = 0; i < ids.length; i++) {
+    d[i] = dense(ids[i]);
+    if (d[i] < 0) {
+      problems.add(where, `cell ${name} is not in the complex (vertex ${ids[i]} appears in no simplex)`);
+      return undefined;
+    }
+  }
+  sortSmall(d, 0, d.length);
+  for (let i = 1; i < d.length; i++) {
+    if (d[i] === d[i - 1]) {
+      problems.add(where, `cell ${name} repeats a vertex`);
+      return undefined;
+    }
+  }
+  const index = k <= complex.dimension ? complex.simplices[k].find(d) : -1;
+  if (index < 0) {
+    problems.add(where, `cell ${name} is not in the complex`);
+    return undefined;
+  }
+  return { k, index, dense: d };
+}
