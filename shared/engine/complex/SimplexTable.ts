@@ -37,14 +37,12 @@ export class SimplexTable {
 
   /** Index of the tuple at `buf[off ..]`, or -1. */
   find(buf: ArrayLike<number>, off = 0): number {
-    const w = this.width;
     let slot = this.hash(buf, off) & this.mask;
     for (;;) {
       const idx = this.slots[slot];
       if (idx < 0) return -1;
       if (this.matches(idx, buf, off)) return idx;
       slot = (slot + 1) & this.mask;
-      void w;
     }
   }
 
@@ -65,6 +63,33 @@ export class SimplexTable {
       this.verts = grown;
     }
     for (let i = 0; i < w; i++) this.verts[idx * w + i] = buf[off + i];
+    this.slots[slot] = idx;
+    if (this.count * 2 > this.slots.length) this.rehash();
+    return idx;
+  }
+
+  /** {@link insert} for width 2, the hot path when closing triangles to edges. */
+  insert2(a: number, b: number): number {
+    let h = Math.imul(0x811c9dc5 ^ a, 0x9e3779b1);
+    h ^= h >>> 15;
+    h = Math.imul(h ^ b, 0x9e3779b1);
+    h ^= h >>> 15;
+    let slot = h & this.mask;
+    const verts = this.verts;
+    for (;;) {
+      const idx = this.slots[slot];
+      if (idx < 0) break;
+      if (verts[2 * idx] === a && verts[2 * idx + 1] === b) return idx;
+      slot = (slot + 1) & this.mask;
+    }
+    const idx = this.count++;
+    if (this.count * 2 > this.verts.length) {
+      const grown = new Int32Array(this.verts.length * 2);
+      grown.set(this.verts);
+      this.verts = grown;
+    }
+    this.verts[2 * idx] = a;
+    this.verts[2 * idx + 1] = b;
     this.slots[slot] = idx;
     if (this.count * 2 > this.slots.length) this.rehash();
     return idx;

@@ -35,13 +35,21 @@ export function cellCount(complex: SimplicialComplex, k: number): number {
 export function buildComplex(listed: Int32Array[], vertexIds: Float64Array): SimplicialComplex {
   const top = listed.length - 1;
   const simplices: SimplexTable[] = [];
-  for (let k = 0; k <= top; k++) {
-    const n = listed[k].length / (k + 1);
-    // Each k-simplex contributes k+1 faces; a closed complex has fewer distinct ones.
-    const expectFromAbove = k < top ? (listed[k + 1].length / (k + 2)) * (k + 2) : 0;
-    simplices.push(new SimplexTable(k + 1, n + expectFromAbove));
+  // Every vertex of a listed simplex is a 0-simplex, and dense indices are
+  // already 0 … n−1 in order: the vertex table is the identity.
+  const vertices = new SimplexTable(1, vertexIds.length);
+  const one = new Int32Array(1);
+  for (let v = 0; v < vertexIds.length; v++) {
+    one[0] = v;
+    vertices.insert(one, 0);
   }
-  for (let k = top; k >= 0; k--) {
+  simplices.push(vertices);
+  for (let k = 1; k <= top; k++) {
+    const n = listed[k].length / (k + 1);
+    const fromAbove = k < top ? listed[k + 1].length : 0;
+    simplices.push(new SimplexTable(k + 1, n + fromAbove));
+  }
+  for (let k = top; k >= 1; k--) {
     const table = simplices[k];
     const list = listed[k];
     for (let off = 0; off < list.length; off += k + 1) table.insert(list, off);
@@ -54,12 +62,29 @@ export function buildComplex(listed: Int32Array[], vertexIds: Float64Array): Sim
     const n = table.size;
     const verts = table.vertices;
     const f = new Int32Array(n * (k + 1));
-    for (let s = 0; s < n; s++) {
-      const base = s * (k + 1);
-      for (let i = 0; i <= k; i++) {
-        let w = 0;
-        for (let j = 0; j <= k; j++) if (j !== i) buf[w++] = verts[base + j];
-        f[base + i] = lower.insert(buf, 0);
+    if (k === 1) {
+      // Faces of an edge (a, b): opposite a is b, opposite b is a.
+      for (let s = 0; s < n; s++) {
+        f[2 * s] = verts[2 * s + 1];
+        f[2 * s + 1] = verts[2 * s];
+      }
+    } else if (k === 2) {
+      for (let s = 0; s < n; s++) {
+        const a = verts[3 * s];
+        const b = verts[3 * s + 1];
+        const c = verts[3 * s + 2];
+        f[3 * s] = lower.insert2(b, c);
+        f[3 * s + 1] = lower.insert2(a, c);
+        f[3 * s + 2] = lower.insert2(a, b);
+      }
+    } else {
+      for (let s = 0; s < n; s++) {
+        const base = s * (k + 1);
+        for (let i = 0; i <= k; i++) {
+          let w = 0;
+          for (let j = 0; j <= k; j++) if (j !== i) buf[w++] = verts[base + j];
+          f[base + i] = lower.insert(buf, 0);
+        }
       }
     }
     faces[k] = f;

@@ -12,18 +12,23 @@ export function readSimplices(raw: unknown, problems: ProblemList): SimplicialCo
   }
   let total = 0;
   let top = -1;
-  for (let i = 0; i < raw.length && !problems.full; i++) {
+  let maxId = 0;
+  const counts: number[] = [];
+  for (let i = 0; i < raw.length; i++) {
     const s = raw[i];
     if (!Array.isArray(s) || s.length === 0) {
       problems.add(`simplices[${i}]`, 'must be a non-empty list of vertex ids');
+      if (problems.full) break;
       continue;
     }
-    for (let j = 0; j < s.length; j++) {
+    const len = s.length;
+    for (let j = 0; j < len; j++) {
       const v = s[j];
       if (typeof v !== 'number' || !Number.isSafeInteger(v) || v < 0) {
         problems.add(`simplices[${i}]`, `vertex ${JSON.stringify(v)} is not a non-negative integer id`);
         break;
       }
+      if (v > maxId) maxId = v;
       for (let q = 0; q < j; q++) {
         if (s[q] === v) {
           problems.add(`simplices[${i}]`, `vertex ${v} appears twice in [${s.join(',')}]`);
@@ -31,33 +36,58 @@ export function readSimplices(raw: unknown, problems: ProblemList): SimplicialCo
         }
       }
     }
-    total += s.length;
-    if (s.length - 1 > top) top = s.length - 1;
+    if (problems.full) break;
+    total += len;
+    if (len - 1 > top) {
+      for (let k = top + 1; k < len; k++) counts.push(0);
+      top = len - 1;
+    }
+    counts[len - 1]++;
   }
   if (problems.any) return undefined;
 
-  const all = new Float64Array(total);
-  let w = 0;
-  for (const s of raw as number[][]) for (const v of s) all[w++] = v;
-  all.sort();
-  let unique = 0;
-  for (let i = 0; i < all.length; i++) if (i === 0 || all[i] !== all[i - 1]) all[unique++] = all[i];
-  const vertexIds = all.slice(0, unique);
+  const vertexIds = collectVertexIds(raw as number[][], total, maxId);
   const dense = denseIndexer(vertexIds);
-
-  const counts = new Array<number>(top + 1).fill(0);
-  for (const s of raw as number[][]) counts[s.length - 1]++;
   const listed = counts.map((c, k) => new Int32Array(c * (k + 1)));
   const fill = new Array<number>(top + 1).fill(0);
-  for (const s of raw as number[][]) {
+  for (let i = 0; i < raw.length; i++) {
+    const s = raw[i] as number[];
     const k = s.length - 1;
     const out = listed[k];
     const base = fill[k];
     for (let j = 0; j <= k; j++) out[base + j] = dense(s[j]);
-    sortSmall(out, base, k + 1);
+    if (k > 0) sortSmall(out, base, k + 1);
     fill[k] += k + 1;
   }
   return buildComplex(listed, vertexIds);
+}
+
+/** The distinct vertex ids, increasing; a presence table when ids are compact, else a sort. */
+function collectVertexIds(raw: number[][], total: number, maxId: number): Float64Array {
+  if (maxId <= 4 * total + 1_000_000) {
+    const seen = new Uint8Array(maxId + 1);
+    let n = 0;
+    for (let i = 0; i < raw.length; i++) {
+      const s = raw[i];
+      for (let j = 0; j < s.length; j++) {
+        if (seen[s[j]] === 0) {
+          seen[s[j]] = 1;
+          n++;
+        }
+      }
+    }
+    const ids = new Float64Array(n);
+    let w = 0;
+    for (let v = 0; v <= maxId; v++) if (seen[v]) ids[w++] = v;
+    return ids;
+  }
+  const all = new Float64Array(total);
+  let w = 0;
+  for (const s of raw) for (const v of s) all[w++] = v;
+  all.sort();
+  let unique = 0;
+  for (let i = 0; i < all.length; i++) if (i === 0 || all[i] !== all[i - 1]) all[unique++] = all[i];
+  return all.slice(0, unique);
 }
 
 /** Dense index of an original vertex id (sorted ids), or -1 when absent. */

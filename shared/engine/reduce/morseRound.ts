@@ -1,5 +1,6 @@
 import { transposeIndex, type BasedComplex, type Coboundary } from '../based/BasedComplex';
-import { copyMat, invert, isZeroMat, maxAbs, mulMat, subInPlace, type Inverse, type Mat } from '../based/Mat';
+import { copyMat, invert, isZeroMat, maxAbs, mulMat, scalarMat, subInPlace, type Inverse, type Mat } from '../based/Mat';
+import { Overlay } from './Overlay';
 import { checkpoint, type Control } from './Cancelled';
 import type { Round } from './Round';
 
@@ -76,10 +77,14 @@ export function morseRound<E>(X: BasedComplex<E>, options: RoundOptions): Round<
     }
   }
 
-  const overUp: (Map<number, Mat<E>> | undefined)[] = new Array(total);
-  const overDown: (Map<number, Mat<E>> | undefined)[] = new Array(total);
-  const upOf = (g: number) => overUp[g] ?? (overUp[g] = new Map());
-  const downOf = (g: number) => overDown[g] ?? (overDown[g] = new Map());
+  const overlay = new Overlay<E>(total);
+  // Scratch lists for one elimination step, reused to keep the hot loop allocation-free.
+  const faceCells: number[] = [];
+  const faceMats: Mat<E>[] = [];
+  const cofaceCells: number[] = [];
+  const cofaceMats: Mat<E>[] = [];
+  const faceSigns: number[] = [];
+  const cofaceSigns: number[] = [];
 
   const inverses = new Map<number, Inverse<E> | null>();
   const inverseOf = (blockId: number): Inverse<E> | null => {
@@ -161,30 +166,73 @@ export function morseRound<E>(X: BasedComplex<E>, options: RoundOptions): Round<
    * neighbours join a side only when the other side is critical.
    */
   const eliminate = (k: number, s: number, t: number, inv: Inverse<E>, sign: number) => {
-    const faces: [number, Mat<E>][] = [];
-    const cofaces: [number, Mat<E>][] = [];
-    const down = overDown[t];
-    if (down) for (const [a, m] of down) faces.push([a, m]);
-    const up = overUp[s];
-    if (up) for (const [w, m] of up) cofaces.push([w, m]);
-    const criticalFaces = faces.length;
-    const criticalCofaces = cofaces.length;
-    if (criticalFaces > 0) forEachFreeCoface(k, s - offset[k], (w, m) => w !== t && cofaces.push([w, m]));
-    if (criticalCofaces > 0) forEachFreeFace(k + 1, t - offset[k + 1], (a, m) => a !== s && faces.push([a, m]));
-    if (faces.length > 0 && cofaces.length > 0) {
-      const factor = sign < 0 ? F.neg(F.one) : F.one;
-      for (const [a, b] of faces) {
-        const tb = mulMat(F, inv.inv, b, factor);
-        const upA = upOf(a);
-        for (const [w, c] of cofaces) {
-          const x = mulMat(F, c, tb);
-          const cur = upA.get(w);
-          if (cur) subInPlace(F, cur, x);
-          else {
-            const fresh = copyMat(F, x, F.neg(F.one));
-            upA.set(w, fresh);
-            downOf(w).set(a, fresh);
+    const criticalFaces = overlay.faceTotal(t);
+    const criticalCofaces = overlay.cofaceTotal(s);
+    if (criticalFaces === 0 && criticalCofaces === 0) {
+      // The common case: no critical neighbour, so nothing to update.
+      remove(s);
+      remove(t);
+      return;
+    }
+    let nf = overlay.faces(t, faceCells, faceMats);
+    let nc = overlay.cofaces(s, cofaceCells, cofaceMats);
+    for (let i = 0; i < nf; i++) faceSigns[i] = 1;
+    for (let j = 0; j < nc; j++) cofaceSigns[j] = 1;
+    if (nf > 0) {
+      const cob = X.cob[k];
+      const base = offset[k + 1];
+      const rows = rowOf[k];
+      const c0 = s - offset[k];
+      for (let p = cob.colPtr[c0]; p < cob.colPtr[c0 + 1]; p++) {
+        const e = cob.colEntry[p];
+        const b = cob.block[e];
+        const w = base + rows[e];
+        if (b >= 0 && w !== t && state[w] === ALIVE) {
+          cofaceCells[nc] = w;
+          cofaceSigns[nc] = cob.sign[e];
+          cofaceMats[nc++] = X.blocks[b];
+        }
+      }
+    }
+    if (criticalCofaces > 0) {
+      const cob = X.cob[k];
+      const base = offset[k];
+      const r0 = t - offset[k + 1];
+      for (let e = cob.rowPtr[r0]; e < cob.rowPtr[r0 + 1]; e++) {
+        const b = cob.block[e];
+        const a = base + cob.col[e];
+        if (b >= 0 && a !== s && state[a] === ALIVE) {
+          faceCells[nf] = a;
+          faceSigns[nf] = cob.sign[e];
+          faceMats[nf++] = X.blocks[b];
+        }
+      }
+    }
+    if (nf > 0 && nc > 0) {
+      const minusOne = F.neg(F.one);
+      const Binv = inv.inv;
+      for (let i = 0; i < nf; i++) {
+        const a = faceCells[i];
+        const bm = faceMats[i];
+        const f = sign * faceSigns[i] < 0 ? minusOne : F.one;
+        // t = ±B⁻¹·b, kept as a scalar when both factors are scalar blocks.
+        const tScalar = Binv.scalar !== undefined && bm.scalar !== undefined ? F.mul(f, F.mul(Binv.scalar, bm.scalar)) : undefined;
+        const tb = tScalar === undefined ? mulMat(F, Binv, bm, f) : undefined;
+        for (let j = 0; j < nc; j++) {
+          const w = cofaceCells[j];
+          const c = cofaceMats[j];
+          const cur = overlay.find(a, w);
+          if (tScalar !== undefined && c.scalar !== undefined && (cur === undefined || cur.scalar !== undefined)) {
+            // Scalar blocks (constant and locally constant sheaves): no temporaries.
+            let x = F.mul(c.scalar, tScalar);
+            if (cofaceSigns[j] < 0) x = F.neg(x);
+            if (cur) cur.scalar = F.sub(cur.scalar as E, x);
+            else overlay.add(a, w, scalarMat(c.rows, F.neg(x)));
+            continue;
           }
+          const x = mulMat(F, c, tb ?? scalarMat(bm.cols, tScalar as E), cofaceSigns[j] < 0 ? minusOne : F.one);
+          if (cur) subInPlace(F, cur, x);
+          else overlay.add(a, w, copyMat(F, x, minusOne));
         }
       }
     }
@@ -225,8 +273,8 @@ export function morseRound<E>(X: BasedComplex<E>, options: RoundOptions): Round<
       for (let e = cob.rowPtr[c]; e < cob.rowPtr[c + 1]; e++) {
         const a = base + cob.col[e];
         if (cob.block[e] >= 0 && state[a] === ALIVE) {
-          freeCofaces[a]--;
-          push(a, LOST_COFACE);
+          // Only a cell left with one free coface has a new move (a reduction pair).
+          if (--freeCofaces[a] === 1) push(a, LOST_COFACE);
         }
       }
     }
@@ -238,8 +286,8 @@ export function morseRound<E>(X: BasedComplex<E>, options: RoundOptions): Round<
         const e = cob.colEntry[p];
         const w = base + rows[e];
         if (cob.block[e] >= 0 && state[w] === ALIVE) {
-          freeFaces[w]--;
-          push(w, LOST_FACE);
+          // Moves open up at one free face (a coreduction pair) or none (defer, or a coface pair).
+          if (--freeFaces[w] <= 1) push(w, LOST_FACE);
         }
       }
     }
@@ -248,12 +296,7 @@ export function morseRound<E>(X: BasedComplex<E>, options: RoundOptions): Round<
   const remove = (g: number) => {
     state[g] = GONE;
     release(g);
-    const up = overUp[g];
-    if (up) for (const w of up.keys()) overDown[w]?.delete(g);
-    const down = overDown[g];
-    if (down) for (const a of down.keys()) overUp[a]?.delete(g);
-    overUp[g] = undefined;
-    overDown[g] = undefined;
+    overlay.removeCell(g);
   };
 
   let criticalCount = 0;
@@ -263,18 +306,10 @@ export function morseRound<E>(X: BasedComplex<E>, options: RoundOptions): Round<
     const c = g - offset[k];
     state[g] = CRITICAL;
     if (k > 0) {
-      forEachFreeFace(k, c, (a, m) => {
-        const own = copyMat(F, m);
-        downOf(g).set(a, own);
-        upOf(a).set(g, own);
-      });
+      forEachFreeFace(k, c, (a, m) => overlay.add(a, g, copyMat(F, m)));
     }
     if (k + 1 < degrees) {
-      forEachFreeCoface(k, c, (w, m) => {
-        const own = copyMat(F, m);
-        upOf(g).set(w, own);
-        downOf(w).set(g, own);
-      });
+      forEachFreeCoface(k, c, (w, m) => overlay.add(g, w, copyMat(F, m)));
     }
     release(g);
   };
@@ -338,7 +373,7 @@ export function morseRound<E>(X: BasedComplex<E>, options: RoundOptions): Round<
     tryCell(next, LOST_FACE, true);
   }
 
-  return buildRound(X, offset, state, overDown, { pairSigma, pairTau, pairKind, smallestPivot, pairs, globalScale });
+  return buildRound(X, offset, state, overlay, { pairSigma, pairTau, pairKind, smallestPivot, pairs, globalScale });
 }
 
 function expandRows(cob: Coboundary): Int32Array {
@@ -352,7 +387,7 @@ function buildRound<E>(
   X: BasedComplex<E>,
   offset: Int32Array,
   state: Uint8Array,
-  overDown: (Map<number, Mat<E>> | undefined)[],
+  overlay: Overlay<E>,
   made: {
     pairSigma: number[][];
     pairTau: number[][];
@@ -379,20 +414,21 @@ function buildRound<E>(
   const dims = critical.map((list, k) => Int32Array.from(list, (c) => X.dims[k][c]));
   const blocks: Mat<E>[] = [];
   const cob: Coboundary[] = [];
+  const cells: number[] = [];
+  const mats: Mat<E>[] = [];
   for (let k = 0; k + 1 < degrees; k++) {
     const rows = critical[k + 1];
     const rowPtr = new Int32Array(rows.length + 1);
     const col: number[] = [];
     const block: number[] = [];
     for (let r = 0; r < rows.length; r++) {
-      const down = overDown[offset[k + 1] + rows[r]];
-      if (down) {
-        for (const [a, m] of down) {
-          if (isZeroMat(F, m, made.globalScale)) continue;
-          col.push(newIndex[a]);
-          block.push(blocks.length);
-          blocks.push(m);
-        }
+      const n = overlay.faces(offset[k + 1] + rows[r], cells, mats);
+      for (let i = 0; i < n; i++) {
+        const m = mats[i];
+        if (isZeroMat(F, m, made.globalScale)) continue;
+        col.push(newIndex[cells[i]]);
+        block.push(blocks.length);
+        blocks.push(m);
       }
       rowPtr[r + 1] = col.length;
     }
