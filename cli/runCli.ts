@@ -1,6 +1,5 @@
 import {
   cohomology,
-  computeCohomology,
   formatProblem,
   ModelError,
   parseFieldOption,
@@ -40,6 +39,10 @@ interface Args {
  * 1 internal failure.
  */
 export function runCli(argv: string[], io: CliIo): number {
+  if (argv[0] === '--help' || argv[0] === '-h' || argv[0] === 'help') {
+    io.stdout(USAGE + '\n');
+    return 0;
+  }
   try {
     const args = parseArgs(argv);
     const text = readText(io, args.file);
@@ -92,17 +95,18 @@ function check(json: unknown, args: Args, io: CliIo): number {
     return 2;
   }
   const sheaf = read.sheaf;
-  const { report } = computeCohomology(sheaf, { method: 'morse' });
+  const cells = sheaf.stalkDims.map((d) => d.length);
+  const cochainDims = sheaf.stalkDims.map((d) => d.reduce((a, b) => a + b, 0));
   io.stdout(
     JSON.stringify({
       valid: true,
       name: sheaf.name ?? null,
       field: sheaf.field.label,
       dimension: sheaf.complex.dimension,
-      cells: report.cells,
-      cochainDims: report.cochainDims,
-      euler: report.euler,
-      explicitMaps: sheaf.maps.filter((m) => m.scalar === undefined || m.rows > 0).length,
+      cells,
+      cochainDims,
+      euler: cochainDims.reduce((s, x, k) => (k % 2 === 0 ? s + x : s - x), 0),
+      matrixMaps: sheaf.restriction.reduce((n, r) => n + r.filter((id) => id >= 0 && sheaf.maps[id].scalar === undefined).length, 0),
       problems: [],
     }) + '\n',
   );
@@ -111,7 +115,7 @@ function check(json: unknown, args: Args, io: CliIo): number {
 
 function parseArgs(argv: string[]): Args {
   const [command, ...rest] = argv;
-  if (!command || command === '--help' || command === '-h') throw new UsageError(`no command given\n${USAGE}`);
+  if (!command) throw new UsageError('no command given (cohomology, check or sections; --help lists them)');
   let file: string | undefined;
   let method: Method = 'morse';
   let fieldText: string | undefined;

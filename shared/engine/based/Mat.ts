@@ -106,9 +106,9 @@ export function maxAbs<E>(F: Field<E>, m: Mat<E>): number {
   return best;
 }
 
-/** Matrix equality: exact in exact fields, within tolerance · (1 + scale) in the real field. */
+/** Matrix equality: exact in exact fields, within tolerance relative to the larger matrix in the real field. */
 export function matEquals<E>(F: Field<E>, A: Mat<E>, B: Mat<E>): boolean {
-  const scale = 1 + Math.max(maxAbs(F, A), maxAbs(F, B));
+  const scale = Math.max(maxAbs(F, A), maxAbs(F, B));
   for (let i = 0; i < A.rows; i++) {
     for (let j = 0; j < A.cols; j++) {
       const d = F.sub(entry(F, A, i, j), entry(F, B, i, j));

@@ -40,6 +40,8 @@ export interface Field<E> {
   newVec(n: number): Vec<E>;
   /** Relative tolerance of the real field; 0 for exact fields. */
   readonly tolerance: number;
+  /** P for the prime field, 0 otherwise (lets hot kernels inline modular arithmetic). */
+  readonly modulus: number;
 }
 
 /** Indexable storage of field elements (a typed array for number fields). */

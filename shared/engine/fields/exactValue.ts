@@ -1,3 +1,5 @@
+import { gcd } from './Rational';
+
 /**
  * A matrix entry as written in a model file, read exactly: the ratio n/d
  * (d > 0, not necessarily reduced) plus the float a reader in the real
@@ -31,7 +33,8 @@ export function parseExactValue(raw: unknown): ExactValue | string {
       const n = BigInt(f[1]);
       const d = BigInt(f[2]);
       if (d === 0n) return `"${raw}" has a zero denominator`;
-      return { n, d, float: Number(n) / Number(d) };
+      const g = gcd(n, d);
+      return { n: n / g, d: d / g, float: Number(n) / Number(d) };
     }
     const parsed = parseDecimal(raw);
     if (parsed) return { ...parsed, float: Number(raw) };
@@ -52,5 +55,7 @@ function parseDecimal(s: string): { n: bigint; d: bigint } | undefined {
   if (e > 0) n *= 10n ** BigInt(e);
   else if (e < 0) d *= 10n ** BigInt(-e);
   if (sign === '-') n = -n;
-  return { n, d };
+  // Lowest terms, so "0.5" is 1/2 and is defined in every field of odd characteristic.
+  const g = gcd(n, d);
+  return g > 1n ? { n: n / g, d: d / g } : { n, d };
 }

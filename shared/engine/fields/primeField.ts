@@ -54,6 +54,7 @@ export function primeField(p: number): Field<number> {
     zero: 0,
     one: 1,
     tolerance: 0,
+    modulus: p,
     add: (a, b) => {
       const s = a + b;
       return s >= p ? s - p : s;

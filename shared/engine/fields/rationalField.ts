@@ -11,6 +11,7 @@ export const rationalField: Field<Rational> = {
   zero: ZERO,
   one: ONE,
   tolerance: 0,
+  modulus: 0,
   // Integer fast paths matter: most sheaves in practice carry ±1 and small integers.
   add: (a, b) =>
     a.d === 1n && b.d === 1n ? { n: a.n + b.n, d: 1n } : rational(a.n * b.d + b.n * a.d, a.d * b.d),

@@ -15,6 +15,7 @@ export function realField(tolerance: number = DEFAULT_TOLERANCE): Field<number> 
     zero: 0,
     one: 1,
     tolerance,
+    modulus: 0,
     add: (a, b) => a + b,
     sub: (a, b) => a - b,
     mul: (a, b) => a * b,

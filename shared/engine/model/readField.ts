@@ -21,7 +21,7 @@ export function readFieldSpec(raw: unknown, problems: ProblemList, where = 'fiel
       return { kind: 'prime', p: p as number };
     }
     case 'real': {
-      const t = raw.tolerance ?? DEFAULT_TOLERANCE;
+      const t = raw.tolerance === undefined ? DEFAULT_TOLERANCE : raw.tolerance;
       if (typeof t !== 'number' || !(t > 0 && t < 1)) {
         problems.add(`${where}.tolerance`, `${JSON.stringify(t)} must be a number between 0 and 1 (exclusive)`);
         return undefined;

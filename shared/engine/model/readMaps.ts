@@ -33,7 +33,7 @@ export function readMaps<E>(
     problems.add('maps', 'must be an object with "default" and optional "entries"');
     return undefined;
   }
-  const def = raw?.default ?? 'identity';
+  const def = raw?.default === undefined ? 'identity' : raw.default;
   if (def !== 'identity' && def !== 'zero') {
     problems.add('maps.default', `${JSON.stringify(def)} is not "identity" or "zero"`);
     return undefined;

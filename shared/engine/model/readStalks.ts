@@ -14,7 +14,7 @@ export function readStalks(
     problems.add('stalks', 'must be an object with "default" and optional "cells"');
     return undefined;
   }
-  const def = raw?.default ?? 1;
+  const def = raw?.default === undefined ? 1 : raw.default;
   if (!isDim(def)) {
     problems.add('stalks.default', `${JSON.stringify(def)} is not a non-negative integer`);
     return undefined;

@@ -66,7 +66,7 @@ export function morseReduce<E>(X0: BasedComplex<E>, options: ReduceOptions = {})
     else X = blockComplex;
   }
   const output = X;
-  const criticalCells = parent ? countParents(rounds, splitFrom, parent, output) : output.dims.map((d) => d.length);
+  const criticalCells = parent ? countParents(rounds, splitFrom, parent, output) : output.dims.map(countNonEmpty);
   let smallestPivot = Infinity;
   for (const r of rounds) smallestPivot = Math.min(smallestPivot, r.smallestPivot);
   return {
@@ -102,4 +102,11 @@ function countParents(rounds: Round<unknown>[], splitFrom: number, parent: Int32
     }
     return seen.size;
   });
+}
+
+/** Cells with a non-zero space (a cell with a zero stalk is never critical). */
+function countNonEmpty(d: Int32Array): number {
+  let n = 0;
+  for (let i = 0; i < d.length; i++) if (d[i] > 0) n++;
+  return n;
 }
