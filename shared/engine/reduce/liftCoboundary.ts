@@ -1,5 +1,5 @@
 import { cellOffsets, type BasedComplex } from '../based/BasedComplex';
-import { invert, isZeroMat, denseMat, type Mat } from '../based/Mat';
+import { invert, isZeroMat, denseMat, scalarMat, type Mat } from '../based/Mat';
 import type { Field, Vec } from '../fields/Field';
 import { CRITICAL, type Matching } from './matchCells';
 import type { MorseEntries } from './MorseEntries';
@@ -16,6 +16,59 @@ import type { MorseEntries } from './MorseEntries';
  * case of a constant sheaf); {@link replayCoboundary} suits the opposite.
  */
 export function liftCoboundary<E>(X: BasedComplex<E>, mt: Matching, k: number, pivotRatio: number): MorseEntries<E> {
+  const scalar = scalarShadow(X, k);
+  if (!scalar) return liftBlocks(X, mt, k, pivotRatio);
+  // Every block of δ^k is λ·I: coordinates never mix, so one lift of the
+  // one-dimensional shadow serves all d coordinates (d times fewer columns,
+  // d² times less memory traffic) and the Morse blocks stay scalar.
+  const shadow = liftBlocks(scalar, mt, k, pivotRatio);
+  const F = X.field;
+  const { offset } = mt.index;
+  const out: MorseEntries<E> = { rows: [], cols: [], mats: [] };
+  shadow.rows.forEach((g, i) => {
+    const c = shadow.cols[i];
+    const d = X.dims[k + 1][g - offset[k + 1]];
+    if (d !== X.dims[k][c - offset[k]]) throw new Error('internal check failed: a scalar path joins stalks of different dimension');
+    out.rows.push(g);
+    out.cols.push(c);
+    out.mats.push(scalarMat(d, shadow.mats[i].scalar ?? (shadow.mats[i].data[0] as E)));
+  });
+  void F;
+  return out;
+}
+
+/** δ^k with every cell one-dimensional and every block its scalar, when all blocks of δ^k are scalar. */
+function scalarShadow<E>(X: BasedComplex<E>, k: number): BasedComplex<E> | undefined {
+  const cob = X.cob[k];
+  const seen = new Map<number, number>();
+  const blocks: Mat<E>[] = [];
+  const block = new Int32Array(cob.block.length);
+  let anyWide = false;
+  for (let e = 0; e < cob.block.length; e++) {
+    const b = cob.block[e];
+    if (b < 0) {
+      block[e] = -1;
+      continue;
+    }
+    let id = seen.get(b);
+    if (id === undefined) {
+      const M = X.blocks[b];
+      if (M.scalar === undefined) return undefined;
+      if (M.rows > 1) anyWide = true;
+      id = blocks.length;
+      blocks.push(scalarMat(1, M.scalar));
+      seen.set(b, id);
+    }
+    block[e] = id;
+  }
+  if (!anyWide) return undefined;
+  const ones = (d: Int32Array) => d.map((n) => (n > 0 ? 1 : 0));
+  const dims = X.dims.map((d, j) => (j === k || j === k + 1 ? ones(d) : d));
+  const cobs = X.cob.map((c, j) => (j === k ? { ...c, block } : c));
+  return { field: X.field, dims, cob: cobs, blocks };
+}
+
+function liftBlocks<E>(X: BasedComplex<E>, mt: Matching, k: number, pivotRatio: number): MorseEntries<E> {
   const F = X.field;
   const { offset } = mt.index;
   const dims = X.dims[k];
@@ -71,8 +124,26 @@ export function liftCoboundary<E>(X: BasedComplex<E>, mt: Matching, k: number, p
     for (let q = 0; q < dims[s] * m; q++) x[base + q] = F.zero;
     addProduct(F, x, base, inv, cob.sign[pivot] > 0 ? -1 : 1, r, 0, m);
   };
-  for (let i = 0; i < sigma.length; i++) if (kind[i] === 0) solve(i);
-  for (let i = sigma.length - 1; i >= 0; i--) if (kind[i] === 1) solve(i);
+  const fast = numberKernel(F, X, k);
+  if (fast >= 0) {
+    const inverseOf = (b: number) => {
+      let inv = inverses.get(b);
+      if (!inv) {
+        const found = invert(F, X.blocks[b], pivotRatio);
+        if (!found) throw new Error('internal check failed: a matched block is not invertible');
+        inv = found.inv;
+        inverses.set(b, inv);
+      }
+      return inv as unknown as Mat<number>;
+    };
+    const step = (i: number) =>
+      solveNumbers(fast, X as unknown as BasedComplex<number>, k, sigma[i], tau[i], entryOf[i], off, m, x as unknown as Float64Array, r as unknown as Float64Array, inverseOf);
+    for (let i = 0; i < sigma.length; i++) if (kind[i] === 0) step(i);
+    for (let i = sigma.length - 1; i >= 0; i--) if (kind[i] === 1) step(i);
+  } else {
+    for (let i = 0; i < sigma.length; i++) if (kind[i] === 0) solve(i);
+    for (let i = sigma.length - 1; i >= 0; i--) if (kind[i] === 1) solve(i);
+  }
 
   for (let t = 0; t < up.length; t++) {
     const g = offset[k + 1] + t;
@@ -155,4 +226,97 @@ function addProductNumbers(p: number, out: Float64Array, o: number, M: Mat<numbe
       }
     }
   }
+}
+
+/**
+ * The modulus for the inlined kernel (0 for the reals), or -1 when the
+ * field needs the generic path. In GF(p) sums are reduced once per row, so
+ * a row's products must add up below 2^53 without reduction.
+ */
+function numberKernel<E>(F: Field<E>, X: BasedComplex<E>, k: number): number {
+  if (F.kind === 'real') return 0;
+  if (F.kind !== 'prime') return -1;
+  const p = F.modulus;
+  const cob = X.cob[k];
+  let widest = 0;
+  for (let t = 0; t + 1 < cob.rowPtr.length; t++) widest = Math.max(widest, cob.rowPtr[t + 1] - cob.rowPtr[t]);
+  let maxDim = 1;
+  for (const d of X.dims) for (let i = 0; i < d.length; i++) if (d[i] > maxDim) maxDim = d[i];
+  return p * p * widest * maxDim < 2 ** 53 ? p : -1;
+}
+
+/** One lift step on Float64Arrays: x_σ = −(sign·B)⁻¹ · Σ_{α≠σ} δ(α→τ)·x_α for all m columns. */
+function solveNumbers(
+  p: number,
+  X: BasedComplex<number>,
+  k: number,
+  s: number,
+  t: number,
+  pivot: number,
+  off: Int32Array,
+  m: number,
+  x: Float64Array,
+  r: Float64Array,
+  inverseOf: (b: number) => Mat<number>,
+): void {
+  const cob = X.cob[k];
+  const n = X.dims[k + 1][t] * m;
+  const invP = p > 0 ? 1 / p : 0;
+  r.fill(0, 0, n);
+  for (let e = cob.rowPtr[t]; e < cob.rowPtr[t + 1]; e++) {
+    const b = cob.block[e];
+    if (b < 0 || e === pivot) continue;
+    const M = X.blocks[b];
+    const negative = cob.sign[e] < 0;
+    const from = off[cob.col[e]] * m;
+    if (M.scalar !== undefined) {
+      const c = negative ? (p > 0 ? (p - M.scalar) % p : -M.scalar) : M.scalar;
+      if (c === 0) continue;
+      for (let q = 0; q < n; q++) r[q] += c * x[from + q];
+    } else {
+      for (let row = 0; row < M.rows; row++) {
+        for (let col = 0; col < M.cols; col++) {
+          let a = M.data[row * M.cols + col];
+          if (a === 0) continue;
+          if (negative) a = p > 0 ? p - a : -a;
+          const vo = from + col * m;
+          const oo = row * m;
+          for (let j = 0; j < m; j++) r[oo + j] += a * x[vo + j];
+        }
+      }
+    }
+  }
+  if (p > 0) for (let q = 0; q < n; q++) r[q] = reduceMod(r[q], p, invP);
+  const inv = inverseOf(cob.block[pivot]);
+  // x_σ = −sign · B⁻¹ r
+  const flip = cob.sign[pivot] > 0;
+  const base = off[s] * m;
+  const ns = X.dims[k][s] * m;
+  if (inv.scalar !== undefined) {
+    const c = flip ? (p > 0 ? (p - inv.scalar) % p : -inv.scalar) : inv.scalar;
+    if (p > 0) for (let q = 0; q < ns; q++) x[base + q] = reduceMod(c * r[q], p, invP);
+    else for (let q = 0; q < ns; q++) x[base + q] = c * r[q];
+    return;
+  }
+  x.fill(0, base, base + ns);
+  for (let row = 0; row < inv.rows; row++) {
+    for (let col = 0; col < inv.cols; col++) {
+      let a = inv.data[row * inv.cols + col];
+      if (a === 0) continue;
+      if (flip) a = p > 0 ? p - a : -a;
+      const oo = base + row * m;
+      const vo = col * m;
+      for (let j = 0; j < m; j++) x[oo + j] += a * r[vo + j];
+    }
+  }
+  if (p > 0) for (let q = 0; q < ns; q++) x[base + q] = reduceMod(x[base + q], p, invP);
+}
+
+/**
+ * a mod p for a non-negative integer a < 2^53 and p < 2^26, without the
+ * slow floating-point `%`: the quotient estimate is off by at most one.
+ */
+export function reduceMod(a: number, p: number, invP: number): number {
+  const r = a - p * Math.floor(a * invP);
+  return r < 0 ? r + p : r >= p ? r - p : r;
 }
