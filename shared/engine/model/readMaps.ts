@@ -114,11 +114,18 @@ export function readMaps<E>(
   });
   if (problems.any) return undefined;
 
+  const uniform = uniformDim(dims);
   for (let k = 1; k <= complex.dimension; k++) {
     const r = restriction[k];
     const faces = complex.faces[k];
     const up = dims[k];
     const down = dims[k - 1];
+    if (uniform >= 0) {
+      // Every stalk has the same dimension: the default is one block for all.
+      const id = def === 'zero' || uniform === 0 ? -1 : identity(uniform);
+      for (let e = 0; e < r.length; e++) if (r[e] === DEFAULT) r[e] = id;
+      continue;
+    }
     for (let e = 0; e < r.length; e++) {
       if (r[e] !== DEFAULT) continue;
       const s = (e / (k + 1)) | 0;
@@ -220,4 +227,16 @@ function readMatrix<E>(
     }
   }
   return denseMat(rows, cols, data);
+}
+
+/** The common stalk dimension, or -1 when stalks differ. */
+function uniformDim(dims: Int32Array[]): number {
+  let d = -1;
+  for (const a of dims) {
+    for (let i = 0; i < a.length; i++) {
+      if (d < 0) d = a[i];
+      else if (a[i] !== d) return -1;
+    }
+  }
+  return d;
 }
