@@ -24,12 +24,7 @@ export interface SectionsReport {
  */
 export function computeSections<E>(sheaf: Sheaf<E>, run: Computation<E>, k: number): { report: SectionsReport; vectors: Vec<E>[] } {
   const F = sheaf.field;
-  const top = sheaf.complex.dimension;
-  if (k < 0 || k > top) throw new RangeError(`degree ${k} is outside 0…${top}`);
-  const small = run.reduction ? run.reduction.output : run.complex;
-  const reps = cohomologyBasis(small, k);
-  const vectors = reps.map((r) => (run.reduction ? run.reduction.lift(k, r) : r));
-  for (const v of vectors) assertCocycle(run.complex, k, v);
+  const vectors = sectionVectors(sheaf, run, k);
   const n = sheaf.complex.simplices[k].size;
   const off = cellOffsets(sheaf.stalkDims[k]);
   const cells: number[][] = [];
@@ -48,6 +43,21 @@ export function computeSections<E>(sheaf: Sheaf<E>, run: Computation<E>, k: numb
     report: { degree: k, dim: vectors.length, field: F.label, method: run.report.method, cells, basis },
     vectors,
   };
+}
+
+/**
+ * Cocycles whose classes form a basis of H^k, as flat cochains on the
+ * original cells (cell order of the complex, each cell's stalk coordinates
+ * in turn), each checked to be a cocycle of the full complex.
+ */
+export function sectionVectors<E>(sheaf: Sheaf<E>, run: Computation<E>, k: number): Vec<E>[] {
+  const top = sheaf.complex.dimension;
+  if (k < 0 || k > top) throw new RangeError(`degree ${k} is outside 0…${top}`);
+  const small = run.reduction ? run.reduction.output : run.complex;
+  const reps = cohomologyBasis(small, k);
+  const vectors = reps.map((r) => (run.reduction ? run.reduction.lift(k, r) : r));
+  for (const v of vectors) assertCocycle(run.complex, k, v);
+  return vectors;
 }
 
 /** Real field: scale to largest magnitude 1 so values read as proportions. */

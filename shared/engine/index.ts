@@ -18,3 +18,6 @@ export { computeCohomology, type Computation, type ComputeOptions } from './comp
 export { computeSections, type SectionsReport } from './computeSections';
 export { Cancelled, type Control } from './reduce/Cancelled';
 export { cohomology, sections } from './cohomology';
+export { sectionVectors } from './computeSections';
+export { ENGINE_VERSION } from './version';
+export type { Reduction } from './reduce/morseReduce';

@@ -35,6 +35,8 @@ export interface Reduction<E> {
   readonly pivotRatio: number;
   /** Lift a degree-k cochain of `output` back to `input`. */
   lift(k: number, x: Vec<E>): Vec<E>;
+  /** Cells of `input` (degree k) that are still critical after the last round, increasing. */
+  criticalInput(k: number): Int32Array;
 }
 
 /**
@@ -78,6 +80,21 @@ export function morseReduce<E>(X0: BasedComplex<E>, options: ReduceOptions = {})
     criticalCells,
     smallestPivot,
     pivotRatio,
+    criticalInput(k) {
+      const seen = new Set<number>();
+      const out = output.dims[k];
+      for (let i = 0; i < out.length; i++) {
+        if (out[i] === 0) continue;
+        let c = i;
+        for (let r = rounds.length - 1; r >= 0; r--) {
+          c = rounds[r].critical[k][c];
+          // Crossing from the split rounds to the block rounds: a coordinate becomes its cell.
+          if (r === splitFrom && parent) c = parent[k][c];
+        }
+        seen.add(c);
+      }
+      return Int32Array.from([...seen].sort((a, b) => a - b));
+    },
     lift(k, x) {
       let v = x;
       // Split and block complexes share their flat coordinates, so only rounds act.

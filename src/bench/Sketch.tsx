@@ -1,0 +1,185 @@
+import { useEffect, useRef, useState } from 'react';
+import type { SketchData } from '../compute/computeService';
+
+export interface SketchPaint {
+  /** One value per vertex (a global section's first coordinate, say); coloured on a diverging scale. */
+  vertexValues?: Float64Array;
+  /** Per degree, indices of cells that stayed critical after reduction. */
+  critical?: Int32Array[];
+}
+
+const INK = '#23262b';
+const RULE = '#b9ae98';
+const GLUED = [46, 122, 103];
+const ODDS = [176, 74, 38];
+const PAPER = [244, 239, 228];
+
+/**
+ * The picture of the complex on a canvas: triangles, edges, vertices, pan
+ * (drag) and zoom (wheel, +/−, 0 to reset). Paths are batched per colour so
+ * 10^5 cells redraw within a frame.
+ */
+export function Sketch({ data, paint }: { data: SketchData; paint: SketchPaint }) {
+  const canvas = useRef<HTMLCanvasElement>(null);
+  const wrap = useRef<HTMLDivElement>(null);
+  const [view, setView] = useState({ scale: 1, tx: 0, ty: 0 });
+  const [size, setSize] = useState({ w: 600, h: 400 });
+  const drag = useRef<{ x: number; y: number } | null>(null);
+
+  useEffect(() => {
+    const el = wrap.current;
+    if (!el) return;
+    const ro = new ResizeObserver(([entry]) => setSize({ w: Math.max(100, entry.contentRect.width), h: Math.max(100, entry.contentRect.height) }));
+    ro.observe(el);
+    return () => ro.disconnect();
+  }, []);
+
+  useEffect(() => {
+    const c = canvas.current;
+    if (!c) return;
+    const frame = requestAnimationFrame(() => draw(c, data, paint, view, size));
+    return () => cancelAnimationFrame(frame);
+  }, [data, paint, view, size]);
+
+  const zoomAt = (factor: number, cx: number, cy: number) =>
+    setView((v) => ({ scale: v.scale * factor, tx: cx - (cx - v.tx) * factor, ty: cy - (cy - v.ty) * factor }));
+
+  return (
+    <div ref={wrap} className="relative h-full w-full overflow-hidden bg-sheet">
+      <canvas
+        ref={canvas}
+        data-testid="sketch"
+        tabIndex={0}
+        aria-label="Sketch of the complex: drag to pan, wheel or +/− to zoom, 0 to reset"
+        width={size.w * devicePixelRatio}
+        height={size.h * devicePixelRatio}
+        style={{ width: size.w, height: size.h, cursor: drag.current ? 'grabbing' : 'grab' }}
+        onWheel={(e) => {
+          const r = (e.target as HTMLCanvasElement).getBoundingClientRect();
+          zoomAt(e.deltaY < 0 ? 1.15 : 1 / 1.15, e.clientX - r.left, e.clientY - r.top);
+        }}
+        onPointerDown={(e) => {
+          drag.current = { x: e.clientX, y: e.clientY };
+          (e.target as HTMLElement).setPointerCapture(e.pointerId);
+        }}
+        onPointerMove={(e) => {
+          if (!drag.current) return;
+          const dx = e.clientX - drag.current.x;
+          const dy = e.clientY - drag.current.y;
+          drag.current = { x: e.clientX, y: e.clientY };
+          setView((v) => ({ ...v, tx: v.tx + dx, ty: v.ty + dy }));
+        }}
+        onPointerUp={() => (drag.current = null)}
+        onKeyDown={(e) => {
+          if (e.key === '+' || e.key === '=') zoomAt(1.25, size.w / 2, size.h / 2);
+          else if (e.key === '-') zoomAt(0.8, size.w / 2, size.h / 2);
+          else if (e.key === '0') setView({ scale: 1, tx: 0, ty: 0 });
+          else if (e.key.startsWith('Arrow')) {
+            const step = 40;
+            setView((v) => ({ ...v, tx: v.tx + (e.key === 'ArrowLeft' ? step : e.key === 'ArrowRight' ? -step : 0), ty: v.ty + (e.key === 'ArrowUp' ? step : e.key === 'ArrowDown' ? -step : 0) }));
+          } else return;
+          e.preventDefault();
+        }}
+      />
+      <div className="pointer-events-none absolute bottom-2 left-2 rounded bg-sheet/80 px-2 py-1 text-[11px] text-ink-faint">
+        {data.given ? 'positions from the model' : 'automatic layout (no positions in the model)'} · {(data.positions.length / 2).toLocaleString()} vertices
+      </div>
+      {paint.vertexValues && <Legend />}
+    </div>
+  );
+}
+
+function Legend() {
+  return (
+    <div className="pointer-events-none absolute top-2 right-2 flex items-center gap-1 rounded bg-sheet/90 px-2 py-1 text-[11px] text-ink-soft">
+      <span>−</span>
+      <span className="h-2 w-20 rounded" style={{ background: `linear-gradient(90deg, rgb(${ODDS}), rgb(${PAPER}), rgb(${GLUED}))` }} />
+      <span>+</span>
+    </div>
+  );
+}
+
+function draw(c: HTMLCanvasElement, data: SketchData, paint: SketchPaint, view: { scale: number; tx: number; ty: number }, size: { w: number; h: number }) {
+  const ctx = c.getContext('2d');
+  if (!ctx) return;
+  const dpr = devicePixelRatio;
+  ctx.setTransform(dpr, 0, 0, dpr, 0, 0);
+  ctx.clearRect(0, 0, size.w, size.h);
+  const side = Math.min(size.w, size.h);
+  const ox = (size.w - side) / 2;
+  const oy = (size.h - side) / 2;
+  const P = data.positions;
+  const X = (i: number) => (ox + P[2 * i] * side) * view.scale + view.tx;
+  const Y = (i: number) => (oy + P[2 * i + 1] * side) * view.scale + view.ty;
+  const n = P.length / 2;
+  const crit = paint.critical;
+
+  const T = data.triangles;
+  if (T.length) {
+    ctx.fillStyle = 'rgba(46,122,103,0.07)';
+    ctx.beginPath();
+    for (let t = 0; t < T.length; t += 3) tri(ctx, X, Y, T[t], T[t + 1], T[t + 2]);
+    ctx.fill();
+  }
+  const E = data.edges;
+  ctx.strokeStyle = E.length > 50_000 ? 'rgba(35,38,43,0.35)' : RULE;
+  ctx.lineWidth = E.length > 50_000 ? 0.5 : 1;
+  ctx.beginPath();
+  for (let e = 0; e < E.length; e += 2) {
+    ctx.moveTo(X(E[e]), Y(E[e]));
+    ctx.lineTo(X(E[e + 1]), Y(E[e + 1]));
+  }
+  ctx.stroke();
+
+  if (crit?.[2]?.length && T.length) {
+    ctx.fillStyle = 'rgba(35,38,43,0.35)';
+    ctx.beginPath();
+    for (const t of crit[2]) tri(ctx, X, Y, T[3 * t], T[3 * t + 1], T[3 * t + 2]);
+    ctx.fill();
+  }
+  if (crit?.[1]?.length) {
+    ctx.strokeStyle = INK;
+    ctx.lineWidth = 3;
+    ctx.beginPath();
+    for (const e of crit[1]) {
+      ctx.moveTo(X(E[2 * e]), Y(E[2 * e]));
+      ctx.lineTo(X(E[2 * e + 1]), Y(E[2 * e + 1]));
+    }
+    ctx.stroke();
+  }
+
+  const values = paint.vertexValues;
+  const r = n > 20_000 ? 1.2 : n > 2000 ? 2.5 : 4.5;
+  let maxAbs = 0;
+  if (values) for (let i = 0; i < values.length; i++) maxAbs = Math.max(maxAbs, Math.abs(values[i]));
+  for (let i = 0; i < n; i++) {
+    ctx.fillStyle = values ? colour(values[i] / (maxAbs || 1)) : INK;
+    ctx.beginPath();
+    ctx.arc(X(i), Y(i), r, 0, 2 * Math.PI);
+    ctx.fill();
+  }
+  if (crit?.[0]?.length) {
+    ctx.strokeStyle = INK;
+    ctx.lineWidth = 2;
+    for (const v of crit[0]) {
+      ctx.beginPath();
+      ctx.arc(X(v), Y(v), r + 4, 0, 2 * Math.PI);
+      ctx.stroke();
+    }
+  }
+}
+
+function tri(ctx: CanvasRenderingContext2D, X: (i: number) => number, Y: (i: number) => number, a: number, b: number, c: number) {
+  ctx.moveTo(X(a), Y(a));
+  ctx.lineTo(X(b), Y(b));
+  ctx.lineTo(X(c), Y(c));
+  ctx.closePath();
+}
+
+/** Diverging: obstruction colour below zero, paper at zero, glued colour above. */
+export function colour(t: number): string {
+  const to = t >= 0 ? GLUED : ODDS;
+  const a = Math.min(1, Math.abs(t));
+  const mix = (i: number) => Math.round(PAPER[i] + (to[i] - PAPER[i]) * a);
+  return `rgb(${mix(0)},${mix(1)},${mix(2)})`;
+}

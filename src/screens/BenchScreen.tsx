@@ -1,0 +1,127 @@
+import { useQuery } from '@tanstack/react-query';
+import { useMemo, useState } from 'react';
+import { Link, useParams } from 'react-router-dom';
+import { appDb } from '../app/db';
+import { useHotkeys } from '../app/useHotkeys';
+import { CellLedger, type LedgerValues } from '../bench/CellLedger';
+import { Findings, type BasisChoice } from '../bench/Findings';
+import { ModelShelf } from '../bench/ModelShelf';
+import { RunHistory } from '../bench/RunHistory';
+import { Sketch, type SketchPaint } from '../bench/Sketch';
+import { SolvePanel } from '../bench/SolvePanel';
+import { useModel, useRuns, useSketch } from '../bench/useModelData';
+import type { RunRecord } from '../compute/computeService';
+import { MapsEditor } from '../editor/MapsEditor';
+import { listProjects } from '../store';
+import { Kbd } from '../ui/Kbd';
+import { engine } from '../workers/engineClient';
+
+type Tab = 'sketch' | 'ledger' | 'editor';
+
+/** The bench: one project's models, the open model's views, and its runs. */
+export function BenchScreen() {
+  const { projectId = '', modelId } = useParams();
+  const projects = useQuery({ queryKey: ['projects'], queryFn: () => listProjects(appDb()) });
+  const project = projects.data?.find((p) => p.id === projectId);
+  const model = useModel(modelId);
+  const runs = useRuns(modelId);
+  const [tab, setTab] = useState<Tab>('sketch');
+  const [runId, setRunId] = useState<string>();
+  const [chosen, setChosen] = useState<BasisChoice>();
+  useHotkeys(useMemo(() => ({ '1': () => setTab('sketch'), '2': () => setTab('ledger'), '3': () => setTab('editor') }), []));
+
+  const run: RunRecord | undefined = (runs.data as RunRecord[] | undefined)?.find((r) => r.id === runId) ?? (runs.data?.[0] as RunRecord | undefined);
+  const m = model.data?.id === modelId ? model.data : undefined;
+  const sketch = useSketch(m?.id, m?.version);
+  const basis = chosen && run?.bases?.find((b) => b.degree === chosen.degree);
+  const stalks = useQuery({
+    queryKey: ['stalks', m?.id, m?.version, chosen?.degree],
+    queryFn: () => engine().stalks(m!.id, chosen!.degree),
+    enabled: !!m && !!chosen,
+  });
+  const ledgerValues: LedgerValues | undefined =
+    basis && chosen && stalks.data ? { degree: chosen.degree, values: basis.values[chosen.index], offsets: offsetsOf(stalks.data), label: `H^${chosen.degree} #${chosen.index + 1}` } : undefined;
+  const paint: SketchPaint = useMemo(() => {
+    const fresh = run && m && run.modelVersion === m.version ? run : undefined;
+    const p: SketchPaint = { critical: fresh?.critical };
+    if (ledgerValues && ledgerValues.degree === 0 && fresh) {
+      const v = new Float64Array(ledgerValues.offsets.length - 1);
+      for (let i = 0; i < v.length; i++) v[i] = ledgerValues.offsets[i + 1] > ledgerValues.offsets[i] ? ledgerValues.values[ledgerValues.offsets[i]] : 0;
+      p.vertexValues = v;
+    }
+    return p;
+  }, [run, m, ledgerValues]);
+
+  return (
+    <div className="grid h-full grid-cols-[15rem_1fr_23rem]">
+      <ModelShelf projectId={projectId} modelId={modelId} />
+      <section className="flex min-w-0 flex-col">
+        <div className="no-print flex items-center gap-1 border-b border-rule bg-sheet px-3 py-1.5">
+          <Link to="/" className="text-xs text-ink-faint hover:text-ink">
+            Desk
+          </Link>
+          <span className="text-xs text-ink-faint">/</span>
+          <span className="text-xs">{project?.name ?? '…'}</span>
+          {m && (
+            <>
+              <span className="text-xs text-ink-faint">/</span>
+              <span className="text-xs font-medium" data-testid="model-name">
+                {m.name}
+              </span>
+            </>
+          )}
+          <div className="ml-auto flex gap-1" role="tablist">
+            {(
+              [
+                ['sketch', 'Sketch', '1'],
+                ['ledger', 'Cell ledger', '2'],
+                ['editor', 'Stalks & maps', '3'],
+              ] as const
+            ).map(([id, label, key]) => (
+              <button key={id} role="tab" aria-selected={tab === id} onClick={() => setTab(id)} className={`rounded px-2 py-0.5 text-sm ${tab === id ? 'bg-ink text-paper' : 'hover:bg-rule-soft'}`}>
+                {label} <Kbd>{key}</Kbd>
+              </button>
+            ))}
+          </div>
+        </div>
+        <div className="min-h-0 flex-1">
+          {!modelId && <EmptyBench />}
+          {modelId && !m && <p className="p-4 text-ink-soft">Opening the model…</p>}
+          {m && tab === 'sketch' && (sketch.data ? <Sketch data={sketch.data} paint={paint} /> : <p className="p-4 text-ink-soft">Drawing…</p>)}
+          {m && tab === 'ledger' && <CellLedger modelId={m.id} version={m.version} cells={m.cells} critical={run?.modelVersion === m.version ? run?.critical : undefined} values={ledgerValues} />}
+          {m && tab === 'editor' && <MapsEditor model={m} />}
+        </div>
+      </section>
+      <aside className="flex min-h-0 min-w-0 flex-col overflow-x-hidden overflow-y-auto border-l border-rule bg-sheet">
+        {m ? (
+          <>
+            <SolvePanel modelId={m.id} modelField={m.field} onFinished={(r) => setRunId(r.id)} />
+            {run ? <Findings run={run} modelName={m.name} chosen={chosen} onChoose={setChosen} /> : null}
+            <RunHistory runs={(runs.data ?? []) as RunRecord[]} selected={run?.id} onSelect={setRunId} />
+          </>
+        ) : (
+          <p className="p-4 text-sm text-ink-soft">Open a model to reduce and solve it.</p>
+        )}
+      </aside>
+    </div>
+  );
+}
+
+function EmptyBench() {
+  return (
+    <div className="flex h-full items-center justify-center text-center text-ink-soft">
+      <div>
+        <p className="mb-1 text-ink">No model open.</p>
+        <p className="text-sm">
+          Pick one on the left, or import a file (<Kbd>i</Kbd>) — a model file, a CSV of simplices, or an OBJ/OFF mesh.
+        </p>
+      </div>
+    </div>
+  );
+}
+
+function offsetsOf(dims: Int32Array): Int32Array {
+  const off = new Int32Array(dims.length + 1);
+  for (let i = 0; i < dims.length; i++) off[i + 1] = off[i] + dims[i];
+  return off;
+}

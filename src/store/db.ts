@@ -1,0 +1,64 @@
+/**
+ * Gluefield's local database (IndexedDB through Dexie), usable from the
+ * main thread and from a Web Worker. What is stored where:
+ * - `projects`: the Desk's projects;
+ * - `models`: one summary row per model (counts, field, hash of the current text);
+ * - `modelTexts`: the model file text, gzip-packed, one row per kept version
+ *   (the newest {@link MAX_TEXT_VERSIONS}), never one row per cell;
+ * - `runs`: Reduce & solve results, with bases as typed arrays;
+ * - `settings`: small key–value preferences.
+ */
+import Dexie, { type Table } from 'dexie';
+import type { ModelRow, ModelTextRow, ProjectRow, RunRow, SettingRow } from './rows';
+import { upgradeToV2 } from './upgradeToV2';
+
+export type {
+  ModelRow,
+  ModelSource,
+  ModelTextRow,
+  ProjectRow,
+  RunRow,
+  RunSettings,
+  RunStatus,
+  SettingRow,
+  StoredBasis,
+} from './rows';
+
+export const DB_NAME = 'gluefield';
+
+/** How many text versions of a model are kept; older ones are dropped on save. */
+export const MAX_TEXT_VERSIONS = 20;
+
+/** Version 1, as first shipped: runs were found through their model only, models had no `bytes`. */
+export const SCHEMA_V1 = {
+  projects: 'id, name, updatedAt',
+  models: 'id, projectId, updatedAt',
+  modelTexts: 'id, modelId, [modelId+version]',
+  runs: 'id, modelId, createdAt',
+  settings: 'key',
+} as const;
+
+/** Version 2: runs carry and index their `projectId`; models carry `bytes`. */
+export const SCHEMA_V2 = {
+  ...SCHEMA_V1,
+  runs: 'id, modelId, projectId, createdAt',
+} as const;
+
+export class GluefieldDb extends Dexie {
+  declare projects: Table<ProjectRow, string>;
+  declare models: Table<ModelRow, string>;
+  declare modelTexts: Table<ModelTextRow, string>;
+  declare runs: Table<RunRow, string>;
+  declare settings: Table<SettingRow, string>;
+
+  constructor(name: string = DB_NAME) {
+    super(name);
+    this.version(1).stores(SCHEMA_V1);
+    this.version(2).stores(SCHEMA_V2).upgrade(upgradeToV2);
+  }
+}
+
+/** A handle on the named database; it opens on first use. */
+export function openDb(name: string = DB_NAME): GluefieldDb {
+  return new GluefieldDb(name);
+}

@@ -1,0 +1,37 @@
+export {
+  DB_NAME,
+  MAX_TEXT_VERSIONS,
+  SCHEMA_V1,
+  SCHEMA_V2,
+  GluefieldDb,
+  openDb,
+  type ModelRow,
+  type ModelSource,
+  type ModelTextRow,
+  type ProjectRow,
+  type RunRow,
+  type RunSettings,
+  type RunStatus,
+  type SettingRow,
+  type StoredBasis,
+} from './db';
+export { StoreError, type StoreErrorCode } from './StoreError';
+export { packText, unpackText, hashText, prepareText, type PreparedText } from './pack';
+export { listProjects, getProject, createProject, renameProject, deleteProject } from './projects';
+export {
+  listModels,
+  getModel,
+  saveNewModel,
+  saveModelVersion,
+  loadModelText,
+  listModelVersions,
+  renameModel,
+  deleteModel,
+  type ModelSummary,
+  type NewModel,
+  type ModelVersionInput,
+  type ModelVersionInfo,
+} from './models';
+export { saveRun, listRuns, getRun, deleteRun, type NewRun } from './runs';
+export { getSetting, setSetting } from './settings';
+export { seedDemoIfEmpty, DEMO_PROJECT_NAME, DEMO_SEEDED_KEY, type Summarize } from './seedDemo';

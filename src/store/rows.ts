@@ -1,0 +1,88 @@
+import type { CohomologyReport, FieldSpec, Method } from '../../shared/engine';
+
+/** A project on the Desk. */
+export interface ProjectRow {
+  id: string;
+  name: string;
+  createdAt: number;
+  updatedAt: number;
+}
+
+/** Where a model's current text came from. */
+export type ModelSource = 'model' | 'csv' | 'obj' | 'off' | 'demo' | 'editor';
+
+/**
+ * A model's summary, enough to list it without reading its text. The text
+ * itself lives in {@link ModelTextRow}, one packed row per kept version.
+ */
+export interface ModelRow {
+  id: string;
+  projectId: string;
+  name: string;
+  /** The current version, 1 for a new model. */
+  version: number;
+  /** SHA-256 (hex) of the current version's text. */
+  hash: string;
+  /** The file's field as the engine labels it (`fieldLabel`, as in CohomologyReport.field): "rational", "real" or "prime:P". */
+  field: string;
+  /** Number of k-simplices, k = 0 … top dimension. */
+  cells: number[];
+  /** Sum of stalk dimensions over the k-simplices. */
+  cochainDims: number[];
+  /** UTF-8 length of the current version's text. */
+  bytes: number;
+  source: ModelSource;
+  createdAt: number;
+  updatedAt: number;
+}
+
+/** One version of a model's text, gzip-packed: a whole model is one row, never one row per cell. */
+export interface ModelTextRow {
+  /** `${modelId}@${version}` */
+  id: string;
+  modelId: string;
+  version: number;
+  /** gzip of the model file's JSON text */
+  packed: Uint8Array;
+  /** UTF-8 length of the text before packing */
+  bytes: number;
+}
+
+export interface RunSettings {
+  method: Method;
+  field: FieldSpec;
+  splitBlocks: boolean;
+}
+
+/** A basis of H^degree, kept with its run. */
+export interface StoredBasis {
+  degree: number;
+  dim: number;
+  /** One vector per basis element: all stalk coordinates in engine cell order. */
+  values: Float64Array[];
+}
+
+export type RunStatus = 'done' | 'failed' | 'cancelled';
+
+/** One Reduce & solve run of one model version. */
+export interface RunRow {
+  id: string;
+  modelId: string;
+  projectId: string;
+  modelVersion: number;
+  modelHash: string;
+  engineVersion: string;
+  settings: RunSettings;
+  status: RunStatus;
+  report?: CohomologyReport;
+  error?: string;
+  bases?: StoredBasis[];
+  createdAt: number;
+  /** Wall-clock milliseconds of the run. */
+  ms: number;
+}
+
+export interface SettingRow {
+  key: string;
+  value: unknown;
+}

@@ -1,0 +1,60 @@
+import * as Comlink from 'comlink';
+import type { ComputeService, Progress, RunRecord } from '../compute/computeService';
+import type { RunSettings } from '../store';
+
+type Remote = Comlink.Remote<ComputeService>;
+
+let worker: Worker | undefined;
+let remote: Remote | undefined;
+
+/** The engine worker, started on first use. */
+export function engine(): Remote {
+  if (!remote) {
+    worker = new Worker(new URL('./engine.worker.ts', import.meta.url), { type: 'module', name: 'gluefield-engine' });
+    remote = Comlink.wrap<ComputeService>(worker);
+  }
+  return remote;
+}
+
+/** Stop whatever the worker is doing; the next call starts a fresh one. */
+export function resetEngine(): void {
+  worker?.terminate();
+  worker = undefined;
+  remote = undefined;
+}
+
+export interface RunHandle {
+  result: Promise<RunRecord>;
+  cancel(): void;
+}
+
+/** Thrown into `result` when the user cancelled. */
+export class RunCancelled extends Error {
+  constructor() {
+    super('cancelled');
+    this.name = 'RunCancelled';
+  }
+}
+
+/**
+ * Start a run in the worker. A synchronous computation cannot poll for a
+ * message, so cancel terminates the worker: the page stays responsive and
+ * nothing half-written reaches the store (the run is saved only at the end).
+ */
+export function startRun(modelId: string, settings: RunSettings, onProgress: (p: Progress) => void): RunHandle {
+  const api = engine();
+  let cancel!: () => void;
+  const cancelled = new Promise<never>((_, reject) => {
+    cancel = () => {
+      resetEngine();
+      reject(new RunCancelled());
+    };
+  });
+  const result = Promise.race([api.run(modelId, settings, Comlink.proxy(onProgress)), cancelled]);
+  return { result, cancel };
+}
+
+/** Import through the worker with progress, so a large file never blocks the page. */
+export function importThroughWorker(projectId: string, file: File, onProgress: (p: Progress) => void) {
+  return engine().importFile(projectId, file.name, file, Comlink.proxy(onProgress));
+}
