@@ -40,29 +40,23 @@ export function liftCoboundary<E>(X: BasedComplex<E>, mt: Matching, k: number, p
 /** δ^k with every cell one-dimensional and every block its scalar, when all blocks of δ^k are scalar. */
 function scalarShadow<E>(X: BasedComplex<E>, k: number): BasedComplex<E> | undefined {
   const cob = X.cob[k];
-  const seen = new Map<number, number>();
-  const blocks: Mat<E>[] = [];
-  const block = new Int32Array(cob.block.length);
+  // Block ids keep their meaning: each scalar block becomes its 1×1 shadow.
   let anyWide = false;
   for (let e = 0; e < cob.block.length; e++) {
     const b = cob.block[e];
-    if (b < 0) {
-      block[e] = -1;
-      continue;
-    }
-    let id = seen.get(b);
-    if (id === undefined) {
-      const M = X.blocks[b];
-      if (M.scalar === undefined) return undefined;
-      if (M.rows > 1) anyWide = true;
-      id = blocks.length;
-      blocks.push(scalarMat(1, M.scalar));
-      seen.set(b, id);
-    }
-    block[e] = id;
+    if (b < 0) continue;
+    const M = X.blocks[b];
+    if (M.scalar === undefined) return undefined;
+    if (M.rows > 1) anyWide = true;
   }
   if (!anyWide) return undefined;
-  const ones = (d: Int32Array) => d.map((n) => (n > 0 ? 1 : 0));
+  const blocks = X.blocks.map((M) => (M.scalar !== undefined ? scalarMat(1, M.scalar) : M));
+  const block = cob.block;
+  const ones = (d: Int32Array) => {
+    const out = new Int32Array(d.length);
+    for (let i = 0; i < d.length; i++) out[i] = d[i] > 0 ? 1 : 0;
+    return out;
+  };
   const dims = X.dims.map((d, j) => (j === k || j === k + 1 ? ones(d) : d));
   const cobs = X.cob.map((c, j) => (j === k ? { ...c, block } : c));
   return { field: X.field, dims, cob: cobs, blocks };

@@ -62,7 +62,7 @@ export function matchCells<E>(X: BasedComplex<E>, options: MatchOptions): Matchi
   const real = F.kind === 'real';
   const degrees = X.dims.length;
   const index = new CellIndex(X);
-  const { offset, total, degreeOf, rowOf } = index;
+  const { offset, total, degreeOf, rowOf, coCell } = index;
 
   const state = new Uint8Array(total);
   const freeFaces = new Int32Array(total);
@@ -197,13 +197,11 @@ export function matchCells<E>(X: BasedComplex<E>, options: MatchOptions): Matchi
       }
     }
     if (k + 1 < degrees) {
-      const cob = X.cob[k];
-      const base = offset[k + 1];
-      const rows = rowOf[k];
-      for (let p = cob.colPtr[c]; p < cob.colPtr[c + 1]; p++) {
-        const e = cob.colEntry[p];
-        const w = base + rows[e];
-        if (cob.block[e] >= 0 && state[w] === ALIVE) {
+      const ptr = X.cob[k].colPtr;
+      const cells = coCell[k];
+      for (let p = ptr[c]; p < ptr[c + 1]; p++) {
+        const w = cells[p];
+        if (w >= 0 && state[w] === ALIVE) {
           // Moves open up at one free face (a coreduction pair) or none (defer, or a coface pair).
           if (--freeFaces[w] <= 1) push(w, LOST_FACE);
         }
