@@ -3,7 +3,8 @@ import { simplexIds } from './complex/SimplicialComplex';
 import type { Vec } from './fields/Field';
 import type { Sheaf } from './model/Sheaf';
 import { cohomologyBasis } from './solve/cohomologyBasis';
-import { scalarRows } from './solve/scalarRows';
+import { accumulate } from './reduce/lift';
+import { maxAbs } from './based/Mat';
 import type { Computation } from './computeCohomology';
 
 /** A basis of H^k as values on the original k-cells. */
@@ -69,17 +70,29 @@ function normalise<E>(F: Sheaf<E>['field'], v: Vec<E>): Vec<E> {
   return m === 0 ? v : (f.map((x) => x / m) as unknown as Vec<E>);
 }
 
+/** δ^k v = 0 on the full complex (within tolerance in the real field), computed block by block. */
 function assertCocycle<E>(X: BasedComplex<E>, k: number, v: Vec<E>): void {
   if (k + 1 >= X.dims.length) return;
   const F = X.field;
-  const rows = scalarRows(X, k);
+  const cob = X.cob[k];
+  const off = cellOffsets(X.dims[k]);
   let norm = 0;
   for (let i = 0; i < v.length; i++) norm = Math.max(norm, F.magnitude(v[i]));
-  for (const r of rows.rows) {
-    let acc = F.zero;
-    for (let i = 0; i < r.cols.length; i++) acc = F.add(acc, F.mul(r.vals[i], v[r.cols[i]]));
-    if (!F.negligible(acc, Math.max(1, rows.scale * norm) * 1e3)) {
-      throw new Error('internal check failed: a lifted representative is not a cocycle');
+  let scale = 0;
+  for (const M of X.blocks) scale = Math.max(scale, maxAbs(F, M));
+  const up = X.dims[k + 1];
+  let widest = 0;
+  for (let t = 0; t < up.length; t++) widest = Math.max(widest, up[t]);
+  const acc = F.newVec(widest);
+  const bound = Math.max(1, scale * norm) * 1e3;
+  for (let t = 0; t < up.length; t++) {
+    for (let q = 0; q < up[t]; q++) acc[q] = F.zero;
+    for (let e = cob.rowPtr[t]; e < cob.rowPtr[t + 1]; e++) {
+      const b = cob.block[e];
+      if (b >= 0) accumulate(F, acc, X.blocks[b], cob.sign[e], v, off[cob.col[e]]);
+    }
+    for (let q = 0; q < up[t]; q++) {
+      if (!F.negligible(acc[q], bound)) throw new Error('internal check failed: a lifted representative is not a cocycle');
     }
   }
 }

@@ -32,8 +32,12 @@ export function ModelShelf({ projectId, modelId }: { projectId: string; modelId?
     for (const file of Array.from(files)) {
       setProblems(undefined);
       setProgress({ phase: 'read', fraction: 0, file: file.name });
+      // Progress arrives on its own message port and may trail the outcome: drop it once this import is over.
+      let live = true;
       try {
-        const outcome = await importThroughWorker(projectId, file, (p) => setProgress({ ...p, file: file.name }));
+        const outcome = await importThroughWorker(projectId, file, (p) => {
+          if (live) setProgress({ ...p, file: file.name });
+        });
         if (!outcome.ok) {
           setProblems({ file: file.name, list: outcome.problems });
         } else {
@@ -43,6 +47,7 @@ export function ModelShelf({ projectId, modelId }: { projectId: string; modelId?
       } catch (err) {
         setProblems({ file: file.name, list: [{ where: file.name, message: (err as Error).message }] });
       } finally {
+        live = false;
         setProgress(undefined);
       }
     }

@@ -152,11 +152,28 @@ function draw(c: HTMLCanvasElement, data: SketchData, paint: SketchPaint, view: 
   const r = n > 20_000 ? 1.2 : n > 2000 ? 2.5 : 4.5;
   let maxAbs = 0;
   if (values) for (let i = 0; i < values.length; i++) maxAbs = Math.max(maxAbs, Math.abs(values[i]));
-  for (let i = 0; i < n; i++) {
-    ctx.fillStyle = values ? colour(values[i] / (maxAbs || 1)) : INK;
-    ctx.beginPath();
-    ctx.arc(X(i), Y(i), r, 0, 2 * Math.PI);
-    ctx.fill();
+  if (n > 5000) {
+    // Many vertices: one path per colour bin of small squares instead of one fill per vertex.
+    const BINS = 21;
+    const bins: number[][] = Array.from({ length: values ? BINS : 1 }, () => []);
+    for (let i = 0; i < n; i++) {
+      const b = values ? Math.round(((values[i] / (maxAbs || 1) + 1) / 2) * (BINS - 1)) : 0;
+      bins[b].push(i);
+    }
+    bins.forEach((list, b) => {
+      if (!list.length) return;
+      ctx.fillStyle = values ? colour((b / (BINS - 1)) * 2 - 1) : INK;
+      ctx.beginPath();
+      for (const i of list) ctx.rect(X(i) - r, Y(i) - r, 2 * r, 2 * r);
+      ctx.fill();
+    });
+  } else {
+    for (let i = 0; i < n; i++) {
+      ctx.fillStyle = values ? colour(values[i] / (maxAbs || 1)) : INK;
+      ctx.beginPath();
+      ctx.arc(X(i), Y(i), r, 0, 2 * Math.PI);
+      ctx.fill();
+    }
   }
   if (crit?.[0]?.length) {
     ctx.strokeStyle = INK;

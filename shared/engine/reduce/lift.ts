@@ -28,11 +28,16 @@ export function liftCochain<E>(round: Round<E>, k: number, x: Vec<E>, pivotRatio
   const tau = round.pairTau[k];
   const kind = round.pairKind[k];
   const inverses = new Map<number, Mat<E>>();
+  let widest = 0;
+  for (const d of [X.dims[k], X.dims[k + 1]]) for (let i = 0; i < d.length; i++) widest = Math.max(widest, d[i]);
+  // Scratch reused across pairs: a lift visits every pair, so per-pair vectors would dominate.
+  const r = F.newVec(widest);
+  const tmp = F.newVec(widest);
   const solve = (i: number) => {
     const s = sigma[i];
     const t = tau[i];
     const dt = X.dims[k + 1][t];
-    const r = F.newVec(dt);
+    for (let q = 0; q < dt; q++) r[q] = F.zero;
     let pivot = -1;
     for (let e = cob.rowPtr[t]; e < cob.rowPtr[t + 1]; e++) {
       const b = cob.block[e];
@@ -54,7 +59,7 @@ export function liftCochain<E>(round: Round<E>, k: number, x: Vec<E>, pivotRatio
     }
     // x_σ = −(sign·M)⁻¹ r = −sign · M⁻¹ r
     const ds = X.dims[k][s];
-    const tmp = F.newVec(ds);
+    for (let q = 0; q < ds; q++) tmp[q] = F.zero;
     accumulate(F, tmp, inv, cob.sign[pivot] > 0 ? -1 : 1, r, 0);
     for (let i2 = 0; i2 < ds; i2++) y[off[s] + i2] = tmp[i2];
   };
