@@ -13,7 +13,9 @@ export function useHotkeys(keys: Hotkeys, enabled = true): void {
       const target = e.target as HTMLElement | null;
       const typing = !!target && (target.tagName === 'INPUT' || target.tagName === 'TEXTAREA' || target.tagName === 'SELECT' || target.isContentEditable);
       const mod = e.ctrlKey || e.metaKey;
-      const name = `${mod ? 'mod+' : ''}${e.shiftKey && e.key.length > 1 ? 'shift+' : ''}${e.key.toLowerCase()}`;
+      // Shift is named for named keys and letters (mod+shift+z), not for the symbols it makes ("?" is shift+/).
+      const shift = e.shiftKey && (e.key.length > 1 || e.key.toLowerCase() !== e.key.toUpperCase());
+      const name = `${mod ? 'mod+' : ''}${shift ? 'shift+' : ''}${e.key.toLowerCase()}`;
       const handler = keys[name];
       if (!handler || (typing && !mod && name !== 'escape')) return;
       e.preventDefault();

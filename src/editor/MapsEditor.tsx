@@ -1,5 +1,5 @@
 import { useQueryClient } from '@tanstack/react-query';
-import { useEffect, useMemo, useState } from 'react';
+import { useEffect, useMemo, useRef, useState } from 'react';
 import type { ModelFile, Problem } from '../../shared/engine';
 import { appDb } from '../app/db';
 import { useHotkeys } from '../app/useHotkeys';
@@ -27,6 +27,10 @@ export function MapsEditor({ model }: { model: ModelRow }) {
   const draft = useUndoable<Draft | undefined>(undefined);
   const [problems, setProblems] = useState<Problem[]>([]);
   const [saved, setSaved] = useState<string>();
+  // The draft that matches the newest stored version: Save is offered only when the draft differs from it.
+  const [clean, setClean] = useState<Draft>();
+  // The version this editor has just saved ("id@version"): reopening it must keep the undo history.
+  const ownSave = useRef<string>(undefined);
 
   useEffect(() => {
     let live = true;
@@ -35,7 +39,10 @@ export function MapsEditor({ model }: { model: ModelRow }) {
       if (text.length > FORM_LIMIT) return setTooLarge(true);
       const m = JSON.parse(text) as ModelFile;
       setBase(m);
-      draft.reset(draftOf(m));
+      if (ownSave.current === `${model.id}@${model.version}`) return;
+      const fresh = draftOf(m);
+      setClean(fresh);
+      draft.reset(fresh);
     });
     return () => {
       live = false;
@@ -68,6 +75,8 @@ export function MapsEditor({ model }: { model: ModelRow }) {
     if (!built?.model || problems.length) return;
     const outcome = await engine().replaceModel(model.id, `${model.name}.sheaf.json`, JSON.stringify(built.model, null, 1), 'editor');
     if (!outcome.ok) return setProblems(outcome.problems);
+    ownSave.current = `${model.id}@${outcome.model.version}`;
+    setClean(d);
     setSaved(`Saved as version ${outcome.model.version}.`);
     await qc.invalidateQueries({ queryKey: ['model', model.id] });
     await qc.invalidateQueries({ queryKey: ['models', model.projectId] });
@@ -82,7 +91,7 @@ export function MapsEditor({ model }: { model: ModelRow }) {
         <Button onClick={draft.redo} disabled={!draft.canRedo}>
           Redo
         </Button>
-        <Button tone="primary" onClick={() => void save()} disabled={!built?.model || problems.length > 0 || !draft.canUndo} data-testid="editor-save">
+        <Button tone="primary" onClick={() => void save()} disabled={!built?.model || problems.length > 0 || d === clean} data-testid="editor-save">
           Save as new version
         </Button>
         {saved && <span className="text-xs text-glued">{saved}</span>}

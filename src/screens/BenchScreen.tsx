@@ -1,5 +1,5 @@
 import { useQuery } from '@tanstack/react-query';
-import { useMemo, useState } from 'react';
+import { lazy, Suspense, useMemo, useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { appDb } from '../app/db';
 import { useHotkeys } from '../app/useHotkeys';
@@ -11,12 +11,14 @@ import { Sketch, type SketchPaint } from '../bench/Sketch';
 import { SolvePanel } from '../bench/SolvePanel';
 import { useModel, useRuns, useSketch } from '../bench/useModelData';
 import type { RunRecord } from '../compute/computeService';
-import { MapsEditor } from '../editor/MapsEditor';
 import { listProjects } from '../store';
 import { Kbd } from '../ui/Kbd';
 import { engine } from '../workers/engineClient';
 
 type Tab = 'sketch' | 'ledger' | 'editor';
+
+// The editor brings the expression parser; load it only when someone edits.
+const MapsEditor = lazy(() => import('../editor/MapsEditor').then((m) => ({ default: m.MapsEditor })));
 
 /** The bench: one project's models, the open model's views, and its runs. */
 export function BenchScreen() {
@@ -89,7 +91,11 @@ export function BenchScreen() {
           {modelId && !m && <p className="p-4 text-ink-soft">Opening the model…</p>}
           {m && tab === 'sketch' && (sketch.data ? <Sketch data={sketch.data} paint={paint} /> : <p className="p-4 text-ink-soft">Drawing…</p>)}
           {m && tab === 'ledger' && <CellLedger modelId={m.id} version={m.version} cells={m.cells} critical={run?.modelVersion === m.version ? run?.critical : undefined} values={ledgerValues} />}
-          {m && tab === 'editor' && <MapsEditor model={m} />}
+          {m && tab === 'editor' && (
+            <Suspense fallback={<p className="p-4 text-ink-soft">Opening the editor…</p>}>
+              <MapsEditor model={m} />
+            </Suspense>
+          )}
         </div>
       </section>
       <aside className="flex min-h-0 min-w-0 flex-col overflow-x-hidden overflow-y-auto border-l border-rule bg-sheet">
