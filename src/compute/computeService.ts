@@ -55,8 +55,10 @@ export interface SketchData {
 /** A run with the cells that stayed critical, by index in the original complex. */
 export type RunRecord = RunRow & { critical?: Int32Array[] };
 
-/** Bases are kept for the findings table when small enough to be read. */
+/** Bases are kept for the findings table when small enough to be read… */
 const MAX_BASIS_DIM = 64;
+/** …and to be stored with every run without weighing down the store (numbers per degree). */
+const MAX_BASIS_VALUES = 2_000_000;
 
 interface Loaded {
   key: string;
@@ -239,6 +241,7 @@ function basesOf(sheaf: Sheaf<unknown>, run: Computation<unknown>): StoredBasis[
   const out: StoredBasis[] = [];
   for (let k = 0; k <= Math.min(1, sheaf.complex.dimension); k++) {
     if (run.report.dims[k] === 0 || run.report.dims[k] > MAX_BASIS_DIM) continue;
+    if (run.report.dims[k] * run.report.cochainDims[k] > MAX_BASIS_VALUES) continue;
     try {
       const vectors = sectionVectors(sheaf, run, k);
       out.push({ degree: k, dim: vectors.length, values: vectors.map((v) => Float64Array.from({ length: v.length }, (_, i) => F.toNumber(v[i]))) });
