@@ -52,7 +52,8 @@ export function buildComplex(listed: Int32Array[], vertexIds: Float64Array): Sim
   for (let k = top; k >= 1; k--) {
     const table = simplices[k];
     const list = listed[k];
-    for (let off = 0; off < list.length; off += k + 1) table.insert(list, off);
+    if (k === 2) for (let off = 0; off < list.length; off += 3) table.insert3(list[off], list[off + 1], list[off + 2]);
+    else for (let off = 0; off < list.length; off += k + 1) table.insert(list, off);
   }
   const faces: Int32Array[] = [new Int32Array(0)];
   const buf = new Int32Array(Math.max(top, 1));

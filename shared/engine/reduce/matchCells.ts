@@ -235,11 +235,10 @@ export function matchCells<E>(X: BasedComplex<E>, options: MatchOptions): Matchi
       if (freeFaces[g] === 0 && k + 1 < degrees) {
         // g is free-face-less: a coface whose only free face is g pairs with it.
         const cob = X.cob[k];
-        const rows = rowOf[k];
+        const cells = coCell[k];
         for (let p = cob.colPtr[c]; p < cob.colPtr[c + 1]; p++) {
-          const e = cob.colEntry[p];
-          const w = offset[k + 1] + rows[e];
-          if (cob.block[e] >= 0 && state[w] === ALIVE && freeFaces[w] === 1 && tryPair(k, e, 0)) return true;
+          const w = cells[p];
+          if (w >= 0 && state[w] === ALIVE && freeFaces[w] === 1 && tryPair(k, cob.colEntry[p], 0)) return true;
         }
       }
     }
