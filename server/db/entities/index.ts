@@ -1,0 +1,11 @@
+export { AuditEntrySchema, type AuditEntryRow } from './AuditEntry';
+export { ChangeSchema, type ChangeRow } from './Change';
+export { DocumentSchema, type DocumentRow } from './Document';
+export { InvitationSchema, type InvitationRow } from './Invitation';
+export { MembershipSchema, type MembershipRow } from './Membership';
+export { MetaSchema, type MetaRow } from './Meta';
+export { PasswordResetSchema, type PasswordResetRow } from './PasswordReset';
+export { ProjectSchema, type ProjectRow } from './Project';
+export { RefreshTokenSchema, type RefreshTokenRow } from './RefreshToken';
+export { UPLOAD_ENTITY, uploadSchema, type UploadRow } from './Upload';
+export { UserSchema, type UserRow } from './User';
