@@ -4,6 +4,7 @@ import { Link, Route, Routes } from 'react-router-dom';
 import { readModel } from '../../shared/engine';
 import { BenchScreen } from '../screens/BenchScreen';
 import { Desk } from '../screens/Desk';
+import { Mailroom } from '../screens/Mailroom';
 import { seedDemoIfEmpty } from '../store';
 import { Kbd } from '../ui/Kbd';
 import { appDb } from './db';
@@ -29,6 +30,9 @@ export function App() {
           <Link to="/" className="hover:text-ink">
             Desk
           </Link>
+          <Link to="/mailroom" className="hover:text-ink">
+            Mailroom
+          </Link>
         </nav>
         <OnlineBadge />
         <button className="ml-auto text-xs text-ink-faint hover:text-ink" onClick={() => setHelp(true)}>
@@ -40,6 +44,7 @@ export function App() {
           <Route path="/" element={<Desk />} />
           <Route path="/p/:projectId" element={<BenchScreen />} />
           <Route path="/p/:projectId/m/:modelId" element={<BenchScreen />} />
+          <Route path="/mailroom" element={<Mailroom />} />
           <Route path="*" element={<p className="p-6">Nothing here. <Link className="underline" to="/">Back to the desk</Link>.</p>} />
         </Routes>
       </main>
