@@ -13,6 +13,7 @@ const RULE = '#b9ae98';
 const GLUED = [46, 122, 103];
 const ODDS = [176, 74, 38];
 const PAPER = [244, 239, 228];
+const TRIANGLE_BATCH = 256;
 
 /**
  * The picture of the complex on a canvas: triangles, edges, vertices, pan
@@ -37,7 +38,16 @@ export function Sketch({ data, paint }: { data: SketchData; paint: SketchPaint }
   useEffect(() => {
     const c = canvas.current;
     if (!c) return;
-    const frame = requestAnimationFrame(() => draw(c, data, paint, view, size));
+    // Drawn a slice per frame (at most ~8 ms each), so a million-cell picture
+    // builds up over a few frames instead of freezing the page.
+    const steps = draw(c, data, paint, view, size);
+    let frame = 0;
+    const pump = () => {
+      const until = performance.now() + 8;
+      while (performance.now() < until) if (steps.next().done) return;
+      frame = requestAnimationFrame(pump);
+    };
+    frame = requestAnimationFrame(pump);
     return () => cancelAnimationFrame(frame);
   }, [data, paint, view, size]);
 
@@ -99,7 +109,12 @@ function Legend() {
   );
 }
 
-function draw(c: HTMLCanvasElement, data: SketchData, paint: SketchPaint, view: { scale: number; tx: number; ty: number }, size: { w: number; h: number }) {
+/** Above this many triangles the faint fill is only a tint over the edges; skip it. */
+const FILL_LIMIT = 100_000;
+/** Primitives per slice of drawing. */
+const SLICE = 4096;
+
+function* draw(c: HTMLCanvasElement, data: SketchData, paint: SketchPaint, view: { scale: number; tx: number; ty: number }, size: { w: number; h: number }): Generator<void> {
   const ctx = c.getContext('2d');
   if (!ctx) return;
   const dpr = devicePixelRatio;
@@ -115,21 +130,28 @@ function draw(c: HTMLCanvasElement, data: SketchData, paint: SketchPaint, view: 
   const crit = paint.critical;
 
   const T = data.triangles;
-  if (T.length) {
+  if (T.length && T.length / 3 <= FILL_LIMIT) {
     ctx.fillStyle = 'rgba(46,122,103,0.07)';
-    ctx.beginPath();
-    for (let t = 0; t < T.length; t += 3) tri(ctx, X, Y, T[t], T[t + 1], T[t + 2]);
-    ctx.fill();
+    // Small batches: one path of many overlapping triangles fills in superlinear time in Chromium's rasteriser.
+    for (let start = 0; start < T.length; start += 3 * TRIANGLE_BATCH) {
+      ctx.beginPath();
+      for (let t = start; t < Math.min(T.length, start + 3 * TRIANGLE_BATCH); t += 3) tri(ctx, X, Y, T[t], T[t + 1], T[t + 2]);
+      ctx.fill();
+      if ((start / 3) % SLICE === 0) yield;
+    }
   }
   const E = data.edges;
   ctx.strokeStyle = E.length > 50_000 ? 'rgba(35,38,43,0.35)' : RULE;
   ctx.lineWidth = E.length > 50_000 ? 0.5 : 1;
-  ctx.beginPath();
-  for (let e = 0; e < E.length; e += 2) {
-    ctx.moveTo(X(E[e]), Y(E[e]));
-    ctx.lineTo(X(E[e + 1]), Y(E[e + 1]));
+  for (let start = 0; start < E.length; start += 2 * SLICE) {
+    ctx.beginPath();
+    for (let e = start; e < Math.min(E.length, start + 2 * SLICE); e += 2) {
+      ctx.moveTo(X(E[e]), Y(E[e]));
+      ctx.lineTo(X(E[e + 1]), Y(E[e + 1]));
+    }
+    ctx.stroke();
+    yield;
   }
-  ctx.stroke();
 
   if (crit?.[2]?.length && T.length) {
     ctx.fillStyle = 'rgba(35,38,43,0.35)';
@@ -147,6 +169,7 @@ function draw(c: HTMLCanvasElement, data: SketchData, paint: SketchPaint, view: 
     }
     ctx.stroke();
   }
+  yield;
 
   const values = paint.vertexValues;
   const r = n > 20_000 ? 1.2 : n > 2000 ? 2.5 : 4.5;
@@ -160,13 +183,16 @@ function draw(c: HTMLCanvasElement, data: SketchData, paint: SketchPaint, view: 
       const b = values ? Math.round(((values[i] / (maxAbs || 1) + 1) / 2) * (BINS - 1)) : 0;
       bins[b].push(i);
     }
-    bins.forEach((list, b) => {
-      if (!list.length) return;
+    for (let b = 0; b < bins.length; b++) {
+      const list = bins[b];
       ctx.fillStyle = values ? colour((b / (BINS - 1)) * 2 - 1) : INK;
-      ctx.beginPath();
-      for (const i of list) ctx.rect(X(i) - r, Y(i) - r, 2 * r, 2 * r);
-      ctx.fill();
-    });
+      for (let start = 0; start < list.length; start += SLICE) {
+        ctx.beginPath();
+        for (let j = start; j < Math.min(list.length, start + SLICE); j++) ctx.rect(X(list[j]) - r, Y(list[j]) - r, 2 * r, 2 * r);
+        ctx.fill();
+        yield;
+      }
+    }
   } else {
     for (let i = 0; i < n; i++) {
       ctx.fillStyle = values ? colour(values[i] / (maxAbs || 1)) : INK;
