@@ -9,6 +9,8 @@ import {
   type Method,
 } from '../shared/engine';
 import { ProblemList } from '../shared/engine/model/Problem';
+import { frameCommand, levelNetCommand, meshCommand, readingsCommand } from './kitCommands';
+import { UsageError } from './UsageError';
 
 export interface CliIo {
   readFile(path: string): string;
@@ -19,18 +21,34 @@ export interface CliIo {
 export const USAGE = `usage:
   gluefield cohomology FILE [--method morse|direct] [--field rational|real|prime:P] [--tolerance T] [--no-split]
   gluefield check FILE [--field rational|real|prime:P]
-  gluefield sections FILE --degree K [--method morse|direct] [--field rational|real|prime:P]`;
+  gluefield sections FILE --degree K [--method morse|direct] [--field rational|real|prime:P]
+  gluefield readings FILE READINGS.json [--field rational|real|prime:P]
+  gluefield level-net STATIONS.csv LINES.csv [--standard first-II|second-I|second-II|third] [--c-mm C]
+  gluefield frame JOINTS.csv BARS.csv
+  gluefield mesh FILE.obj|FILE.off [--field prime:2|rational] [--no-cycles]`;
 
-/** Bad input at the command line or in the file: exit status 2. */
-class UsageError extends Error {}
+/** The positional files each command takes, as named in messages. */
+const FILES: Record<string, string[]> = {
+  cohomology: ['FILE'],
+  check: ['FILE'],
+  sections: ['FILE'],
+  readings: ['FILE', 'READINGS.json'],
+  'level-net': ['STATIONS.csv', 'LINES.csv'],
+  frame: ['JOINTS.csv', 'BARS.csv'],
+  mesh: ['FILE'],
+};
 
 interface Args {
   command: string;
   file: string;
+  files: string[];
   method: Method;
   field?: FieldSpec;
   degree?: number;
   split: boolean;
+  standard?: string;
+  cMm?: number;
+  cycles: boolean;
 }
 
 /**
@@ -45,6 +63,11 @@ export function runCli(argv: string[], io: CliIo): number {
   }
   try {
     const args = parseArgs(argv);
+    const kit = kitCommand(args, io);
+    if (kit !== undefined) {
+      io.stdout(JSON.stringify(kit) + '\n');
+      return 0;
+    }
     const text = readText(io, args.file);
     let parseMs = 0;
     // Parsed on demand and handed straight to the engine, so no frame here keeps
@@ -93,6 +116,23 @@ export function runCli(argv: string[], io: CliIo): number {
   }
 }
 
+/** The commands of the trade kits and readings; undefined for the model-file commands. */
+function kitCommand(args: Args, io: CliIo): unknown {
+  const [a, b] = args.files;
+  switch (args.command) {
+    case 'level-net':
+      return levelNetCommand([a, b], [readText(io, a), readText(io, b)], { standard: args.standard, cMm: args.cMm });
+    case 'frame':
+      return frameCommand([a, b], [readText(io, a), readText(io, b)]);
+    case 'mesh':
+      return meshCommand(a, readText(io, a), { field: args.field, cycles: args.cycles });
+    case 'readings':
+      return readingsCommand(parseJson(readText(io, a), a), parseJson(readText(io, b), b), args.field);
+    default:
+      return undefined;
+  }
+}
+
 function check(json: unknown, args: Args, io: CliIo): number {
   const read = readModel(json, { field: args.field });
   if (!read.sheaf) {
@@ -121,8 +161,11 @@ function check(json: unknown, args: Args, io: CliIo): number {
 
 function parseArgs(argv: string[]): Args {
   const [command, ...rest] = argv;
-  if (!command) throw new UsageError('no command given (cohomology, check or sections; --help lists them)');
-  let file: string | undefined;
+  if (!command) throw new UsageError(`no command given (${Object.keys(FILES).join(', ')}; --help lists them)`);
+  const files: string[] = [];
+  let standard: string | undefined;
+  let cMm: number | undefined;
+  let cycles = true;
   let method: Method = 'morse';
   let fieldText: string | undefined;
   let tolerance: number | undefined;
@@ -149,11 +192,21 @@ function parseArgs(argv: string[]): Args {
       if (!/^\d+$/.test(d)) throw new UsageError(`--degree: "${d}" is not a non-negative integer`);
       degree = Number(d);
     } else if (a === '--no-split') split = false;
+    else if (a === '--standard') standard = value();
+    else if (a === '--c-mm') {
+      const c = value();
+      if (!/^\d*\.?\d+([eE][+-]?\d+)?$/.test(c) || !(Number(c) > 0)) throw new UsageError(`--c-mm: "${c}" is not a positive number of millimetres`);
+      cMm = Number(c);
+    } else if (a === '--no-cycles') cycles = false;
     else if (a.startsWith('--')) throw new UsageError(`unknown option ${a}`);
-    else if (file === undefined) file = a;
-    else throw new UsageError(`unexpected argument "${a}"`);
+    else files.push(a);
   }
-  if (!file) throw new UsageError(`${command} needs a FILE`);
+  if (!Object.hasOwn(FILES, command)) throw new UsageError(`unknown command "${command}"`);
+  const names = FILES[command];
+  if (files.length > names.length) throw new UsageError(`unexpected argument "${files[names.length]}"`);
+  if (files.length < names.length) {
+    throw new UsageError(names.length === 1 ? `${command} needs a FILE` : `${command} needs ${names.join(' and ')}`);
+  }
   let field: FieldSpec | undefined;
   if (fieldText !== undefined) {
     const problems = new ProblemList();
@@ -162,7 +215,7 @@ function parseArgs(argv: string[]): Args {
   } else if (tolerance !== undefined) {
     field = { kind: 'real', tolerance };
   }
-  return { command, file, method, field, degree, split };
+  return { command, file: files[0], files, method, field, degree, split, standard, cMm, cycles };
 }
 
 function readText(io: CliIo, file: string): string {

@@ -21,3 +21,4 @@ export { cohomology, sections } from './cohomology';
 export { sectionVectors } from './computeSections';
 export { ENGINE_VERSION } from './version';
 export type { Reduction } from './reduce/morseReduce';
+export * from './data';

@@ -1,0 +1,119 @@
+import { simplexIds } from '../../engine/complex/SimplicialComplex';
+import { computeCohomology } from '../../engine/computeCohomology';
+import { HomologyCycles } from '../../engine/data/cycleRepresentatives';
+import type { FieldSpec } from '../../engine/fields/FieldSpec';
+import type { ModelFile } from '../../engine/model/ModelFile';
+import { readModelOrThrow } from '../../engine/model/readModel';
+import { denseIndexer } from '../../engine/model/readSimplices';
+import type { Control } from '../../engine/reduce/Cancelled';
+import { surfaceChecks, windingConsistent } from './surfaceChecks';
+
+/** A representative cycle of one homology class, as the cells it runs over. */
+export interface ClassCycle {
+  degree: number;
+  /** The k-simplices with a nonzero coefficient, by original vertex ids (increasing in each). */
+  cells: number[][];
+  /** Coefficients, one per cell, relative to increasing vertex order; absent over GF(2), where every one is 1. */
+  coefficients?: (number | string)[];
+}
+
+export interface MeshReport {
+  field: string;
+  vertices: number;
+  edges: number;
+  triangles: number;
+  /** Connected components (b0). */
+  components: number;
+  /** Betti numbers b0, b1, b2 over the field: components, independent tunnels (loops), enclosed voids. */
+  betti: number[];
+  euler: number;
+  closed: boolean;
+  orientable: boolean | null;
+  /** The file's own corner order already orients the surface consistently. */
+  windingConsistent: boolean | null;
+  boundaryEdges: number;
+  nonManifoldEdges: number;
+  nonManifoldVertices: number;
+  looseEdges: number;
+  looseVertices: number;
+  /** One representative cycle per class of H_1 and H_2 (edge loops, closed triangle sets). */
+  cycles: ClassCycle[];
+  ms: { cohomology: number; cycles: number; total: number };
+}
+
+export interface MeshOptions {
+  /** GF(2) (the default) or the rationals; any field the model format allows. */
+  field?: FieldSpec;
+  /** Compute representative cycles (default true). */
+  cycles?: boolean;
+  control?: Control;
+}
+
+/**
+ * Topology of a mesh as the constant sheaf on its triangles: Betti numbers
+ * by Morse reduction (dim H^k over a field equals the homology Betti number,
+ * Hatcher 2002 §3.1), a representative cycle of every class of H_1 and H_2,
+ * and the combinatorial surface checks (closed, orientable, consistently
+ * wound). Over GF(2) a closed surface always has b2 = 1 per piece; over
+ * the rationals b2 counts the orientable closed pieces.
+ */
+export function analyseMesh(model: ModelFile, options: MeshOptions = {}): MeshReport {
+  const t0 = performance.now();
+  const field = options.field ?? { kind: 'prime', p: 2 };
+  const sheaf = readModelOrThrow(model, { field });
+  const cx = sheaf.complex;
+  const run = computeCohomology(sheaf, { control: options.control });
+  const t1 = performance.now();
+  const dims = run.report.dims;
+  const betti = [0, 1, 2].map((k) => dims[k] ?? 0);
+  for (let k = 3; k < dims.length; k++) betti.push(dims[k]);
+  const checks = surfaceChecks(cx);
+  let winding: boolean | null = null;
+  if (cx.dimension === 2 && checks.nonManifoldEdges === 0) {
+    const dense = denseIndexer(cx.vertexIds);
+    const listed: number[] = [];
+    for (const s of model.simplices) if (s.length === 3) listed.push(dense(s[0]), dense(s[1]), dense(s[2]));
+    winding = windingConsistent(cx, listed);
+  }
+  const cycles: ClassCycle[] = [];
+  if (options.cycles !== false) {
+    const F = sheaf.field;
+    const homology = dims.slice(1).some((d) => d > 0) ? new HomologyCycles(sheaf, options.control) : undefined;
+    for (let k = 1; k <= cx.dimension; k++) {
+      if (!dims[k] || !homology) continue;
+      const reps = homology.cycles(k);
+      if (reps.length !== dims[k]) throw new Error(`internal check failed: ${reps.length} cycles in degree ${k}, but dim H^${k} = ${dims[k]}`);
+      for (const z of reps) {
+        const cells: number[][] = [];
+        const coefficients: (number | string)[] = [];
+        for (let c = 0; c < z.length; c++) {
+          if (F.isZero(z[c])) continue;
+          cells.push(simplexIds(cx, k, c));
+          coefficients.push(F.toJSON(z[c]));
+        }
+        cycles.push(field.kind === 'prime' && field.p === 2 ? { degree: k, cells } : { degree: k, cells, coefficients });
+      }
+    }
+  }
+  const t2 = performance.now();
+  const round = (ms: number) => Math.round(ms * 10) / 10;
+  return {
+    field: sheaf.field.label,
+    vertices: cx.simplices[0]?.size ?? 0,
+    edges: cx.simplices[1]?.size ?? 0,
+    triangles: cx.simplices[2]?.size ?? 0,
+    components: betti[0],
+    betti,
+    euler: run.report.euler,
+    closed: checks.closed,
+    orientable: checks.orientable,
+    windingConsistent: winding,
+    boundaryEdges: checks.boundaryEdges,
+    nonManifoldEdges: checks.nonManifoldEdges,
+    nonManifoldVertices: checks.nonManifoldVertices,
+    looseEdges: checks.looseEdges,
+    looseVertices: checks.looseVertices,
+    cycles,
+    ms: { cohomology: round(t1 - t0), cycles: round(t2 - t1), total: round(t2 - t0) },
+  };
+}
