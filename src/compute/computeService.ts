@@ -218,7 +218,7 @@ export function createComputeService(db: GluefieldDb): ComputeService {
         bases,
         ms: performance.now() - started,
         ...(critical ? { critical } : {}),
-      } as Omit<RunRow, 'id' | 'createdAt'>);
+      });
       return saved as RunRecord;
     },
   };

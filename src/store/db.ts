@@ -6,10 +6,11 @@
  * - `modelTexts`: the model file text, gzip-packed, one row per kept version
  *   (the newest {@link MAX_TEXT_VERSIONS}), never one row per cell;
  * - `runs`: Reduce & solve results, with bases as typed arrays;
+ * - `readings`: field data on a model's cells, one packed row per readings file;
  * - `settings`: small key–value preferences.
  */
 import Dexie, { type Table } from 'dexie';
-import type { ModelRow, ModelTextRow, ProjectRow, RunRow, SettingRow } from './rows';
+import type { ModelRow, ModelTextRow, ProjectRow, ReadingsRow, RunRow, SettingRow } from './rows';
 import { upgradeToV2 } from './upgradeToV2';
 
 export type {
@@ -17,6 +18,7 @@ export type {
   ModelSource,
   ModelTextRow,
   ProjectRow,
+  ReadingsRow,
   RunRow,
   RunSettings,
   RunStatus,
@@ -44,17 +46,25 @@ export const SCHEMA_V2 = {
   runs: 'id, modelId, projectId, createdAt',
 } as const;
 
+/** Version 3: readings files kept with their model. */
+export const SCHEMA_V3 = {
+  ...SCHEMA_V2,
+  readings: 'id, modelId, projectId, updatedAt',
+} as const;
+
 export class GluefieldDb extends Dexie {
   declare projects: Table<ProjectRow, string>;
   declare models: Table<ModelRow, string>;
   declare modelTexts: Table<ModelTextRow, string>;
   declare runs: Table<RunRow, string>;
   declare settings: Table<SettingRow, string>;
+  declare readings: Table<ReadingsRow, string>;
 
   constructor(name: string = DB_NAME) {
     super(name);
     this.version(1).stores(SCHEMA_V1);
     this.version(2).stores(SCHEMA_V2).upgrade(upgradeToV2);
+    this.version(3).stores(SCHEMA_V3);
   }
 }
 

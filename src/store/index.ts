@@ -3,12 +3,14 @@ export {
   MAX_TEXT_VERSIONS,
   SCHEMA_V1,
   SCHEMA_V2,
+  SCHEMA_V3,
   GluefieldDb,
   openDb,
   type ModelRow,
   type ModelSource,
   type ModelTextRow,
   type ProjectRow,
+  type ReadingsRow,
   type RunRow,
   type RunSettings,
   type RunStatus,
@@ -34,4 +36,5 @@ export {
 } from './models';
 export { saveRun, listRuns, getRun, deleteRun, type NewRun } from './runs';
 export { getSetting, setSetting } from './settings';
+export { saveReadings, listReadings, loadReadingsText, deleteReadings, type NewReadings } from './readings';
 export { seedDemoIfEmpty, DEMO_PROJECT_NAME, DEMO_SEEDED_KEY, type Summarize } from './seedDemo';

@@ -151,11 +151,12 @@ export async function renameModel(db: GluefieldDb, id: string, name: string): Pr
 /** Delete a model with all its text versions and runs, all or nothing. Unknown ids are a no-op. */
 export async function deleteModel(db: GluefieldDb, id: string): Promise<void> {
   checkId(id, 'model');
-  await writeTx(db, [db.projects, db.models, db.modelTexts, db.runs], async () => {
+  await writeTx(db, [db.projects, db.models, db.modelTexts, db.runs, db.readings], async () => {
     const row = await db.models.get(id);
     if (!row) return;
     await db.modelTexts.where('modelId').equals(id).delete();
     await db.runs.where('modelId').equals(id).delete();
+    await db.readings.where('modelId').equals(id).delete();
     await db.models.delete(id);
     const project = await db.projects.get(row.projectId);
     if (project) await db.projects.put({ ...project, updatedAt: stamp() });

@@ -37,9 +37,10 @@ export async function renameProject(db: GluefieldDb, id: string, name: string): 
 /** Delete a project with its models, their texts and their runs, all or nothing. Unknown ids are a no-op. */
 export async function deleteProject(db: GluefieldDb, id: string): Promise<void> {
   checkId(id, 'project');
-  await writeTx(db, [db.projects, db.models, db.modelTexts, db.runs], async () => {
+  await writeTx(db, [db.projects, db.models, db.modelTexts, db.runs, db.readings], async () => {
     const modelIds = await db.models.where('projectId').equals(id).primaryKeys();
     await db.modelTexts.where('modelId').anyOf(modelIds).delete();
+    await db.readings.where('projectId').equals(id).delete();
     await db.runs.where('modelId').anyOf(modelIds).delete();
     await db.runs.where('projectId').equals(id).delete();
     await db.models.bulkDelete(modelIds);

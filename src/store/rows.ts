@@ -80,6 +80,23 @@ export interface RunRow {
   createdAt: number;
   /** Wall-clock milliseconds of the run. */
   ms: number;
+  /** Morse runs: per degree, the original cells still critical after the last round. */
+  critical?: Int32Array[];
+}
+
+/** A readings file (field data on cells) kept with a model, gzip-packed like model texts. */
+export interface ReadingsRow {
+  id: string;
+  modelId: string;
+  projectId: string;
+  name: string;
+  packed: Uint8Array;
+  /** uncompressed length */
+  bytes: number;
+  /** number of readings in the file */
+  count: number;
+  createdAt: number;
+  updatedAt: number;
 }
 
 export interface SettingRow {
