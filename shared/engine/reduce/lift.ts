@@ -1,5 +1,6 @@
 import { cellOffsets } from '../based/BasedComplex';
-import { invert, type Mat } from '../based/Mat';
+import type { Mat } from '../based/Mat';
+import { matchedInverses } from './matchedInverses';
 import type { Vec } from '../fields/Field';
 import type { Round } from './Round';
 
@@ -27,7 +28,7 @@ export function liftCochain<E>(round: Round<E>, k: number, x: Vec<E>, pivotRatio
   const sigma = round.pairSigma[k];
   const tau = round.pairTau[k];
   const kind = round.pairKind[k];
-  const inverses = new Map<number, Mat<E>>();
+  const inverseOf = matchedInverses(X, pivotRatio);
   let widest = 0;
   for (const d of [X.dims[k], X.dims[k + 1]]) for (let i = 0; i < d.length; i++) widest = Math.max(widest, d[i]);
   // Scratch reused across pairs: a lift visits every pair, so per-pair vectors would dominate.
@@ -49,14 +50,7 @@ export function liftCochain<E>(round: Round<E>, k: number, x: Vec<E>, pivotRatio
       }
       accumulate(F, r, X.blocks[b], cob.sign[e], y, off[a]);
     }
-    const b = cob.block[pivot];
-    let inv = inverses.get(b);
-    if (!inv) {
-      const found = invert(F, X.blocks[b], pivotRatio);
-      if (!found) throw new Error('a matched block is no longer invertible');
-      inv = found.inv;
-      inverses.set(b, inv);
-    }
+    const inv = inverseOf(cob.block[pivot]);
     // x_σ = −(sign·M)⁻¹ r = −sign · M⁻¹ r
     const ds = X.dims[k][s];
     for (let q = 0; q < ds; q++) tmp[q] = F.zero;

@@ -1,5 +1,6 @@
 import { cellOffsets, type BasedComplex } from '../based/BasedComplex';
-import { invert, isZeroMat, denseMat, scalarMat, type Mat } from '../based/Mat';
+import { isZeroMat, denseMat, scalarMat, type Mat } from '../based/Mat';
+import { matchedInverses } from './matchedInverses';
 import type { Field, Vec } from '../fields/Field';
 import { CRITICAL, type Matching } from './matchCells';
 import type { MorseEntries } from './MorseEntries';
@@ -93,7 +94,7 @@ function liftBlocks<E>(X: BasedComplex<E>, mt: Matching, k: number, pivotRatio: 
   let maxUp = 0;
   for (let t = 0; t < up.length; t++) maxUp = Math.max(maxUp, up[t]);
   const r = F.newVec(maxUp * m);
-  const inverses = new Map<number, Mat<E>>();
+  const inverseOf = matchedInverses(X, pivotRatio);
   const solve = (i: number) => {
     const s = sigma[i];
     const t = tau[i];
@@ -105,14 +106,7 @@ function liftBlocks<E>(X: BasedComplex<E>, mt: Matching, k: number, pivotRatio: 
       if (b < 0 || e === pivot) continue;
       addProduct(F, r, 0, X.blocks[b], cob.sign[e], x, off[cob.col[e]] * m, m);
     }
-    const b = cob.block[pivot];
-    let inv = inverses.get(b);
-    if (!inv) {
-      const found = invert(F, X.blocks[b], pivotRatio);
-      if (!found) throw new Error('internal check failed: a matched block is not invertible');
-      inv = found.inv;
-      inverses.set(b, inv);
-    }
+    const inv = inverseOf(cob.block[pivot]);
     // x_σ = −(sign·M)⁻¹ r
     const base = off[s] * m;
     for (let q = 0; q < dims[s] * m; q++) x[base + q] = F.zero;
@@ -120,18 +114,9 @@ function liftBlocks<E>(X: BasedComplex<E>, mt: Matching, k: number, pivotRatio: 
   };
   const fast = numberKernel(F, X, k);
   if (fast >= 0) {
-    const inverseOf = (b: number) => {
-      let inv = inverses.get(b);
-      if (!inv) {
-        const found = invert(F, X.blocks[b], pivotRatio);
-        if (!found) throw new Error('internal check failed: a matched block is not invertible');
-        inv = found.inv;
-        inverses.set(b, inv);
-      }
-      return inv as unknown as Mat<number>;
-    };
+    const numberInverse = inverseOf as unknown as (b: number) => Mat<number>;
     const step = (i: number) =>
-      solveNumbers(fast, X as unknown as BasedComplex<number>, k, sigma[i], tau[i], entryOf[i], off, m, x as unknown as Float64Array, r as unknown as Float64Array, inverseOf);
+      solveNumbers(fast, X as unknown as BasedComplex<number>, k, sigma[i], tau[i], entryOf[i], off, m, x as unknown as Float64Array, r as unknown as Float64Array, numberInverse);
     for (let i = 0; i < sigma.length; i++) if (kind[i] === 0) step(i);
     for (let i = sigma.length - 1; i >= 0; i--) if (kind[i] === 1) step(i);
   } else {

@@ -1,5 +1,6 @@
 import type { BasedComplex } from '../based/BasedComplex';
-import { copyMat, invert, isZeroMat, mulMat, scalarMat, subInPlace, type Mat } from '../based/Mat';
+import { copyMat, isZeroMat, mulMat, scalarMat, subInPlace, type Mat } from '../based/Mat';
+import { matchedInverses } from './matchedInverses';
 import { ALIVE, CRITICAL, GONE, type Matching } from './matchCells';
 import type { MorseEntries } from './MorseEntries';
 import { Overlay } from './Overlay';
@@ -29,7 +30,7 @@ export function replayCoboundary<E>(X: BasedComplex<E>, m: Matching, k: number, 
   const cofaceMats: Mat<E>[] = [];
   const cofaceSigns: number[] = [];
   const minusOne = F.neg(F.one);
-  const inverses = new Map<number, Mat<E>>();
+  const inverseOf = matchedInverses(X, pivotRatio);
 
   const remove = (g: number) => {
     state[g] = GONE;
@@ -94,14 +95,7 @@ export function replayCoboundary<E>(X: BasedComplex<E>, m: Matching, k: number, 
       }
     }
     if (nf > 0 && nc > 0) {
-      const bId = cob.block[e0];
-      let Binv = inverses.get(bId);
-      if (!Binv) {
-        const found = invert(F, X.blocks[bId], pivotRatio);
-        if (!found) throw new Error('internal check failed: a matched block is not invertible');
-        Binv = found.inv;
-        inverses.set(bId, Binv);
-      }
+      const Binv = inverseOf(cob.block[e0]);
       const sign = cob.sign[e0];
       for (let a0 = 0; a0 < nf; a0++) {
         const a = faceCells[a0];
