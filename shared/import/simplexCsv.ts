@@ -2,10 +2,10 @@ import Papa from 'papaparse';
 import { ProblemList } from '../engine/model/Problem';
 import { constantSheafModel } from './constantSheafModel';
 import type { ImportOptions, ImportResult } from './ImportResult';
+import { guessDelimiter, rowLines } from './csvLayout';
 
 /** A simplex of dimension 7 has 8 vertices; wider rows are almost surely a wrong file. */
 const MAX_COLUMNS = 8;
-const DELIMITERS = [',', ';', '\t'] as const;
 const INTEGER = /^[+-]?\d+$/;
 const VERTEX_ID = /^\d+$/;
 
@@ -86,31 +86,4 @@ function readRow(cells: string[], width: number, line: string, problems: Problem
     } else simplex.push(id);
   }
   return ok ? simplex : undefined;
-}
-
-/** The line (from 1) where each parsed row starts: quoted cells may hold line breaks. */
-function rowLines(rows: string[][]): number[] {
-  const lines = new Array<number>(rows.length);
-  let line = 1;
-  for (let r = 0; r < rows.length; r++) {
-    lines[r] = line;
-    line++;
-    for (const cell of rows[r]) for (let i = cell.indexOf('\n'); i >= 0; i = cell.indexOf('\n', i + 1)) line++;
-  }
-  return lines;
-}
-
-/** The candidate used most often in the first lines; a comma when none is (one-column files). */
-function guessDelimiter(text: string): string {
-  const sample = text.split('\n', 40).filter((l) => l.trim() !== '').slice(0, 20).join('\n');
-  let best: string = DELIMITERS[0];
-  let bestCount = 0;
-  for (const d of DELIMITERS) {
-    const count = sample.split(d).length - 1;
-    if (count > bestCount) {
-      best = d;
-      bestCount = count;
-    }
-  }
-  return best;
 }

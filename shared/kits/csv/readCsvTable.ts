@@ -1,5 +1,6 @@
 import Papa from 'papaparse';
 import type { ProblemList } from '../../engine/model/Problem';
+import { guessDelimiter, rowLines } from '../../import/csvLayout';
 
 /** One data row of a CSV table: its line in the file and its cells by (lower-case) column name. */
 export interface CsvRow {
@@ -14,7 +15,6 @@ export interface CsvTable {
   rows: CsvRow[];
 }
 
-const DELIMITERS = [',', ';', '\t'] as const;
 
 /**
  * Read a CSV table with a header row: column names are trimmed and
@@ -82,30 +82,4 @@ export function parseDecimalCell(cell: string): number | string {
   }
   const x = Number(cell);
   return Number.isFinite(x) ? x : `"${cell}" is too large`;
-}
-
-/** The line (from 1) where each parsed row starts: quoted cells may hold line breaks. */
-function rowLines(rows: string[][]): number[] {
-  const lines = new Array<number>(rows.length);
-  let line = 1;
-  for (let r = 0; r < rows.length; r++) {
-    lines[r] = line;
-    line++;
-    for (const cell of rows[r]) for (let i = cell.indexOf('\n'); i >= 0; i = cell.indexOf('\n', i + 1)) line++;
-  }
-  return lines;
-}
-
-function guessDelimiter(text: string): string {
-  const sample = text.split('\n', 40).filter((l) => l.trim() !== '').slice(0, 20).join('\n');
-  let best: string = DELIMITERS[0];
-  let bestCount = 0;
-  for (const d of DELIMITERS) {
-    const count = sample.split(d).length - 1;
-    if (count > bestCount) {
-      best = d;
-      bestCount = count;
-    }
-  }
-  return best;
 }
