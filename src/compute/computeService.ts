@@ -16,6 +16,7 @@ import { detectFormat, importAny } from '../../shared/import';
 import { spectralLayout } from '../../shared/layout/spectralLayout';
 import type { GluefieldDb, ModelRow, RunRow, RunSettings, StoredBasis } from '../store';
 import { getModel, loadModelText, saveModelVersion, saveNewModel, saveRun } from '../store';
+import { createKitService, type KitService } from './kitService';
 
 export interface Progress {
   phase: string;
@@ -66,7 +67,8 @@ interface Loaded {
   sheaf: Sheaf<unknown>;
 }
 
-export interface ComputeService {
+/** The model methods, and the trade kits (levelling net, frame check, mesh topology). */
+export interface ComputeService extends KitService {
   importFile(projectId: string, fileName: string, data: string | Blob, onProgress?: ProgressSink): Promise<ImportOutcome>;
   replaceModel(modelId: string, fileName: string, data: string | Blob, source?: ModelRow['source']): Promise<ImportOutcome>;
   validateText(text: string): Promise<{ problems: Problem[]; summary?: ModelSummary }>;
@@ -109,6 +111,8 @@ export function createComputeService(db: GluefieldDb): ComputeService {
   };
 
   return {
+    ...createKitService(),
+
     async importFile(projectId, fileName, data, onProgress) {
       const p = await prepare(fileName, data, onProgress);
       if (!p.sheaf) return { ok: false, problems: p.problems };

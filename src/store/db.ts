@@ -11,6 +11,7 @@
  */
 import Dexie, { type Table } from 'dexie';
 import type { ModelRow, ModelTextRow, ProjectRow, ReadingsRow, RunRow, SettingRow } from './rows';
+import type { OutboxRow, SyncLinkRow } from '../sync/rows';
 import { upgradeToV2 } from './upgradeToV2';
 
 export type {
@@ -52,6 +53,18 @@ export const SCHEMA_V3 = {
   readings: 'id, modelId, projectId, updatedAt',
 } as const;
 
+/**
+ * Version 4: team sync. `outbox` holds local changes to linked projects
+ * waiting to be pushed (see src/sync); `syncLinks` one row per project
+ * linked to the team server. Both start empty, so the upgrade adds the
+ * tables and touches no existing row.
+ */
+export const SCHEMA_V4 = {
+  ...SCHEMA_V3,
+  outbox: '++seq, projectId, [projectId+docId]',
+  syncLinks: 'projectId',
+} as const;
+
 export class GluefieldDb extends Dexie {
   declare projects: Table<ProjectRow, string>;
   declare models: Table<ModelRow, string>;
@@ -59,12 +72,15 @@ export class GluefieldDb extends Dexie {
   declare runs: Table<RunRow, string>;
   declare settings: Table<SettingRow, string>;
   declare readings: Table<ReadingsRow, string>;
+  declare outbox: Table<OutboxRow, number>;
+  declare syncLinks: Table<SyncLinkRow, string>;
 
   constructor(name: string = DB_NAME) {
     super(name);
     this.version(1).stores(SCHEMA_V1);
     this.version(2).stores(SCHEMA_V2).upgrade(upgradeToV2);
     this.version(3).stores(SCHEMA_V3);
+    this.version(4).stores(SCHEMA_V4);
   }
 }
 

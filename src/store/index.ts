@@ -4,6 +4,7 @@ export {
   SCHEMA_V1,
   SCHEMA_V2,
   SCHEMA_V3,
+  SCHEMA_V4,
   GluefieldDb,
   openDb,
   type ModelRow,
