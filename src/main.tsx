@@ -6,7 +6,8 @@ import { App } from './app/App';
 import './styles.css';
 
 // Local data never goes stale behind our back: queries are invalidated by our own writes.
-const queryClient = new QueryClient({ defaultOptions: { queries: { staleTime: Infinity, retry: false } } });
+// Local data lives in IndexedDB: queries and mutations run offline too (the default 'online' mode would pause them).
+const queryClient = new QueryClient({ defaultOptions: { queries: { staleTime: Infinity, retry: false, networkMode: 'always' }, mutations: { networkMode: 'always' } } });
 
 createRoot(document.getElementById('root')!).render(
   <StrictMode>

@@ -2,10 +2,16 @@ import { useQueryClient } from '@tanstack/react-query';
 import { useEffect, useState } from 'react';
 import { Link, Route, Routes } from 'react-router-dom';
 import { readModel } from '../../shared/engine';
+import { KitsScreen } from '../kits/KitsScreen';
 import { BenchScreen } from '../screens/BenchScreen';
 import { Desk } from '../screens/Desk';
 import { Mailroom } from '../screens/Mailroom';
 import { seedDemoIfEmpty } from '../store';
+import { AccountPanel } from '../team/AccountPanel';
+import { ConflictsScreen } from '../team/ConflictsScreen';
+import { CrewScreen, LogbookScreen } from '../team/CrewScreen';
+import { InvitationPage, ResetPasswordPage } from '../team/LinkPages';
+import { SyncRunner } from '../team/teamClient';
 import { Kbd } from '../ui/Kbd';
 import { appDb } from './db';
 import { UpdatePrompt } from './UpdatePrompt';
@@ -30,12 +36,18 @@ export function App() {
           <Link to="/" className="hover:text-ink">
             Desk
           </Link>
+          <Link to="/kits" className="hover:text-ink">
+            Kits
+          </Link>
           <Link to="/mailroom" className="hover:text-ink">
             Mailroom
           </Link>
         </nav>
         <OnlineBadge />
-        <button className="ml-auto text-xs text-ink-faint hover:text-ink" onClick={() => setHelp(true)}>
+        <span className="ml-auto">
+          <AccountPanel />
+        </span>
+        <button className="text-xs text-ink-faint hover:text-ink" onClick={() => setHelp(true)}>
           Shortcuts <Kbd>?</Kbd>
         </button>
       </header>
@@ -44,12 +56,19 @@ export function App() {
           <Route path="/" element={<Desk />} />
           <Route path="/p/:projectId" element={<BenchScreen />} />
           <Route path="/p/:projectId/m/:modelId" element={<BenchScreen />} />
+          <Route path="/kits/*" element={<KitsScreen />} />
+          <Route path="/p/:projectId/conflicts" element={<ConflictsScreen />} />
+          <Route path="/p/:projectId/crew" element={<CrewScreen />} />
+          <Route path="/p/:projectId/logbook" element={<LogbookScreen />} />
+          <Route path="/reset-password/:token" element={<ResetPasswordPage />} />
+          <Route path="/invitations/:token" element={<InvitationPage />} />
           <Route path="/mailroom" element={<Mailroom />} />
           <Route path="*" element={<p className="p-6">Nothing here. <Link className="underline" to="/">Back to the desk</Link>.</p>} />
         </Routes>
       </main>
       {help && <ShortcutHelp onClose={() => setHelp(false)} />}
       <UpdatePrompt />
+      <SyncRunner />
     </div>
   );
 }

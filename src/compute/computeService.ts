@@ -16,6 +16,7 @@ import { detectFormat, importAny } from '../../shared/import';
 import { spectralLayout } from '../../shared/layout/spectralLayout';
 import type { GluefieldDb, ModelRow, RunRow, RunSettings, StoredBasis } from '../store';
 import { getModel, loadModelText, saveModelVersion, saveNewModel, saveRun } from '../store';
+import { recordModelSaved, recordRunSaved } from '../sync/recordChange';
 import { createKitService, type KitService } from './kitService';
 
 export interface Progress {
@@ -127,6 +128,7 @@ export function createComputeService(db: GluefieldDb): ComputeService {
         cells: s.cells,
         cochainDims: s.cochainDims,
       });
+      await recordModelSaved(db, model);
       onProgress?.({ phase: 'done', fraction: 1 });
       return { ok: true, model };
     },
@@ -136,6 +138,7 @@ export function createComputeService(db: GluefieldDb): ComputeService {
       if (!p.sheaf) return { ok: false, problems: p.problems };
       const s = summarise(p.sheaf);
       const model = await saveModelVersion(db, modelId, { text: p.text, field: s.field, cells: s.cells, cochainDims: s.cochainDims, source: source ?? p.format });
+      await recordModelSaved(db, model);
       return { ok: true, model };
     },
 
@@ -201,6 +204,7 @@ export function createComputeService(db: GluefieldDb): ComputeService {
       if (!read.sheaf) {
         const error = read.problems.map((p) => `${p.where}: ${p.message}`).join('; ');
         const saved = await saveRun(db, { ...base, status: 'failed', error, ms: performance.now() - started });
+        await recordRunSaved(db, saved);
         return saved;
       }
       const sheaf = read.sheaf;
@@ -223,6 +227,7 @@ export function createComputeService(db: GluefieldDb): ComputeService {
         ms: performance.now() - started,
         ...(critical ? { critical } : {}),
       });
+      await recordRunSaved(db, saved);
       return saved as RunRecord;
     },
   };

@@ -12,6 +12,7 @@ import { SolvePanel } from '../bench/SolvePanel';
 import { useModel, useRuns, useSketch } from '../bench/useModelData';
 import type { RunRecord } from '../compute/computeService';
 import { listProjects } from '../store';
+import { ProjectSyncControls, SyncBadge } from '../team/SyncBadge';
 import { Kbd } from '../ui/Kbd';
 import { engine } from '../workers/engineClient';
 
@@ -64,6 +65,10 @@ export function BenchScreen() {
           </Link>
           <span className="text-xs text-ink-faint">/</span>
           <span className="text-xs">{project?.name ?? '…'}</span>
+          <span className="ml-2 flex items-center gap-1">
+            <SyncBadge projectId={projectId} />
+            <ProjectSyncControls projectId={projectId} />
+          </span>
           {m && (
             <>
               <span className="text-xs text-ink-faint">/</span>

@@ -4,6 +4,10 @@ import { Link, useNavigate } from 'react-router-dom';
 import { appDb } from '../app/db';
 import { useHotkeys } from '../app/useHotkeys';
 import { createProject, deleteProject, listModels, listProjects, renameProject, type ProjectRow } from '../store';
+import { unlinkProject } from '../sync/engine';
+import { recordProjectRenamed } from '../sync/recordChange';
+import { ProjectSyncControls, SyncBadge } from '../team/SyncBadge';
+import { TeamProjects } from '../team/TeamProjects';
 import { Button } from '../ui/Button';
 import { ConfirmDialog } from '../ui/ConfirmDialog';
 import { Kbd } from '../ui/Kbd';
@@ -30,7 +34,11 @@ export function Desk() {
     onError: (e: Error) => setError(e.message),
   });
   const remove = useMutation({
-    mutationFn: (id: string) => deleteProject(db, id),
+    // Deleting the local copy stops syncing it; the team's copy stays on the server.
+    mutationFn: async (id: string) => {
+      await deleteProject(db, id);
+      await unlinkProject(db, id);
+    },
     onSuccess: () => qc.invalidateQueries({ queryKey: ['projects'] }),
   });
 
@@ -74,6 +82,7 @@ export function Desk() {
       <ul className="divide-y divide-rule-soft rounded border border-rule bg-sheet">
         {projects.data?.map((p) => <ProjectItem key={p.id} project={p} onDelete={() => setDoomed(p)} />)}
       </ul>
+      <TeamProjects />
       <ConfirmDialog
         open={!!doomed}
         title={`Delete “${doomed?.name}”?`}
@@ -96,12 +105,18 @@ function ProjectItem({ project, onDelete }: { project: ProjectRow; onDelete(): v
   const [editing, setEditing] = useState(false);
   const [name, setName] = useState(project.name);
   const rename = useMutation({
-    mutationFn: (n: string) => renameProject(db, project.id, n),
+    mutationFn: async (n: string) => {
+      const p = await renameProject(db, project.id, n);
+      await recordProjectRenamed(db, p);
+      return p;
+    },
     onSuccess: () => {
       setEditing(false);
       void qc.invalidateQueries({ queryKey: ['projects'] });
+      void qc.invalidateQueries({ queryKey: ['sync', project.id] });
     },
   });
+  const renameError = rename.error?.message;
   return (
     <li className="flex items-center gap-3 px-4 py-3">
       {editing ? (
@@ -114,6 +129,7 @@ function ProjectItem({ project, onDelete }: { project: ProjectRow; onDelete(): v
         >
           <input aria-label="Project name" autoFocus value={name} onChange={(e) => setName(e.target.value)} onKeyDown={(e) => e.key === 'Escape' && setEditing(false)} className="flex-1 rounded border border-rule bg-paper px-2 py-1" />
           <Button type="submit">Save</Button>
+          {renameError && <span role="alert" className="text-xs text-odds">{renameError}</span>}
         </form>
       ) : (
         <Link to={`/p/${project.id}`} className="flex-1">
@@ -123,6 +139,8 @@ function ProjectItem({ project, onDelete }: { project: ProjectRow; onDelete(): v
           </span>
         </Link>
       )}
+      <SyncBadge projectId={project.id} />
+      <ProjectSyncControls projectId={project.id} />
       {!editing && (
         <Button tone="quiet" onClick={() => setEditing(true)} aria-label={`Rename ${project.name}`}>
           Rename

@@ -1,0 +1,224 @@
+/**
+ * The trade kits as worker methods: read the user's files with the kit
+ * readers (located problems, never a throw), run the kit, and add what the
+ * pictures need (positions, edges) so the page draws without re-parsing.
+ */
+import type { Problem } from '../../shared/engine';
+import { detectFormat, importAny } from '../../shared/import';
+import {
+  adjustLevellingNet,
+  analyseFrame,
+  analyseMesh,
+  customStandard,
+  levellingStandard,
+  readLevellingCsv,
+  readFrameCsv,
+  readCsvTable,
+  type FrameReport,
+  type LevellingReport,
+  type MeshReport,
+} from '../../shared/kits';
+import { ProblemList } from '../../shared/engine/model/Problem';
+import { spectralLayout } from '../../shared/layout/spectralLayout';
+import type { ProgressSink } from './computeService';
+
+export type KitOutcome<T> = { ok: true; result: T } | { ok: false; problems: Problem[] };
+
+export interface LevelNetResult {
+  report: LevellingReport;
+  stations: { id: string; benchmark: boolean }[];
+  lines: { from: string; to: string; rise: number; lengthKm: number }[];
+  /** x, y per station in [0, 1]² (y down), in station order. */
+  positions: number[];
+  /** Positions from x/y (or east/north) columns of stations.csv, or an automatic layout. */
+  positionsGiven: boolean;
+}
+
+export interface FrameResult {
+  report: FrameReport;
+  joints: { id: string; position: number[]; fixed: boolean[] }[];
+  bars: { id: string; from: string; to: string }[];
+}
+
+export interface MeshResult {
+  report: MeshReport;
+  /** Projected x, y per vertex in [0, 1]² (y down), dense order. */
+  positions: Float32Array;
+  /** Original vertex id per dense index. */
+  vertexIds: Int32Array;
+  /** Dense vertex index pairs of the drawn edges (all, or a sample for very large meshes). */
+  edges: Int32Array;
+  /** Cycles were skipped because the mesh is too large. */
+  cyclesSkipped: string | null;
+}
+
+export interface LevelNetSettings {
+  /** A listed standard key, or 'custom' with cMm. */
+  standard: string;
+  cMm?: number;
+}
+
+/** Representative cycles are found up to this many triangles; past it only the Betti numbers. */
+export const MESH_CYCLE_LIMIT = 200_000;
+/** At most this many edges are sent back for the picture. */
+const MESH_DRAW_EDGES = 60_000;
+
+export interface KitService {
+  levelNet(stationsName: string, stationsText: string, linesName: string, linesText: string, settings: LevelNetSettings): Promise<KitOutcome<LevelNetResult>>;
+  frameCheck(jointsName: string, jointsText: string, barsName: string, barsText: string): Promise<KitOutcome<FrameResult>>;
+  meshTopology(fileName: string, data: string | Blob, onProgress?: ProgressSink): Promise<KitOutcome<MeshResult>>;
+}
+
+/** `meshCycleLimit` overrides {@link MESH_CYCLE_LIMIT} (tests). */
+export function createKitService(options: { meshCycleLimit?: number } = {}): KitService {
+  const cycleLimit = options.meshCycleLimit ?? MESH_CYCLE_LIMIT;
+  return {
+    async levelNet(stationsName, stationsText, linesName, linesText, settings) {
+      const read = readLevellingCsv(stationsText, linesText, { stations: stationsName, lines: linesName });
+      if (!read.net) return { ok: false, problems: read.problems };
+      let standard;
+      if (settings.standard === 'custom') {
+        const c = settings.cMm ?? NaN;
+        if (!(c > 0) || !Number.isFinite(c)) return { ok: false, problems: [{ where: 'tolerance', message: `c = ${settings.cMm} mm must be a positive number` }] };
+        standard = customStandard(c);
+      } else {
+        standard = levellingStandard(settings.standard);
+        if (!standard) return { ok: false, problems: [{ where: 'tolerance', message: `unknown standard "${settings.standard}"` }] };
+      }
+      const report = adjustLevellingNet(read.net, { standard });
+      const net = read.net;
+      const index = new Map(net.stations.map((s, i) => [s.id, i]));
+      const edges = Int32Array.from(net.lines.flatMap((l) => [index.get(l.from)!, index.get(l.to)!]));
+      const given = stationPositions(stationsText, stationsName, net.stations.map((s) => s.id));
+      const positions = given ?? Array.from(spectralLayout(net.stations.length, edges));
+      return {
+        ok: true,
+        result: {
+          report,
+          stations: net.stations.map((s) => ({ id: s.id, benchmark: s.height !== undefined })),
+          lines: net.lines.map((l) => ({ from: l.from, to: l.to, rise: l.rise, lengthKm: l.lengthKm })),
+          positions,
+          positionsGiven: given !== undefined,
+        },
+      };
+    },
+
+    async frameCheck(jointsName, jointsText, barsName, barsText) {
+      const read = readFrameCsv(jointsText, barsText, { joints: jointsName, bars: barsName });
+      if (!read.frame) return { ok: false, problems: read.problems };
+      const report = analyseFrame(read.frame);
+      return {
+        ok: true,
+        result: {
+          report,
+          joints: read.frame.joints.map((j) => ({ id: j.id, position: j.position, fixed: j.fixed })),
+          bars: read.frame.bars.map((b) => ({ id: b.id, from: b.from, to: b.to })),
+        },
+      };
+    },
+
+    async meshTopology(fileName, data, onProgress) {
+      onProgress?.({ phase: 'read', fraction: 0 });
+      const text = typeof data === 'string' ? data : await data.text();
+      const format = detectFormat(fileName, text.slice(0, 4096));
+      if (format !== 'obj' && format !== 'off') return { ok: false, problems: [{ where: fileName, message: 'the mesh kit reads OBJ or OFF meshes' }] };
+      onProgress?.({ phase: 'parse', fraction: 0.1 });
+      const field = { kind: 'prime', p: 2 } as const;
+      const imported = importAny(fileName, text, { field });
+      if ('problems' in imported) return { ok: false, problems: imported.problems.map((p) => ({ where: p.where ? `${fileName} ${p.where}` : fileName, message: p.message })) };
+      const model = imported.model;
+      const triangles = model.simplices.reduce((n, s) => n + (s.length === 3 ? 1 : 0), 0);
+      const withCycles = triangles <= cycleLimit;
+      const report = analyseMesh(model, {
+        field,
+        cycles: withCycles,
+        control: { progress: (phase, fraction) => onProgress?.({ phase, fraction }) },
+      });
+      onProgress?.({ phase: 'picture', fraction: 1 });
+      return { ok: true, result: { report, ...meshPicture(model.simplices, model.vertices ?? []), cyclesSkipped: withCycles ? null : `representative cycles are skipped above ${cycleLimit.toLocaleString('en')} triangles (this mesh has ${triangles.toLocaleString('en')}); the Betti numbers are complete` } };
+    },
+  };
+}
+
+/** Optional x,y (or east,north) columns of stations.csv, scaled to [0, 1]² with y up on paper. */
+function stationPositions(text: string, file: string, ids: string[]): number[] | undefined {
+  const table = readCsvTable(text, file, ['id'], new ProblemList());
+  if (!table) return undefined;
+  const pair = (['x', 'y'] as const).every((c) => table.columns.includes(c)) ? ['x', 'y'] : ['east', 'north'].every((c) => table.columns.includes(c)) ? ['east', 'north'] : undefined;
+  if (!pair) return undefined;
+  const [xc, yc] = pair;
+  const at = new Map<string, [number, number]>();
+  for (const r of table.rows) {
+    const x = Number(r.cells[xc]);
+    const y = Number(r.cells[yc]);
+    if (r.cells[xc] === '' || r.cells[yc] === '' || !Number.isFinite(x) || !Number.isFinite(y)) return undefined;
+    at.set(r.cells.id, [x, y]);
+  }
+  if (!ids.every((id) => at.has(id))) return undefined;
+  return fitUnit(ids.map((id) => at.get(id)!));
+}
+
+function fitUnit(points: [number, number][]): number[] {
+  let minX = Infinity, maxX = -Infinity, minY = Infinity, maxY = -Infinity;
+  for (const [x, y] of points) {
+    minX = Math.min(minX, x);
+    maxX = Math.max(maxX, x);
+    minY = Math.min(minY, y);
+    maxY = Math.max(maxY, y);
+  }
+  const span = Math.max(maxX - minX, maxY - minY) || 1;
+  // Centred in the square whichever side is the shorter.
+  const cx = (span - (maxX - minX)) / 2;
+  const cy = (span - (maxY - minY)) / 2;
+  return points.flatMap(([x, y]) => [0.05 + (0.9 * (x - minX + cx)) / span, 0.95 - (0.9 * (y - minY + cy)) / span]);
+}
+
+/** A fixed oblique view (rotate 35° about z, tilt 30°), edges deduplicated and capped for drawing. */
+function meshPicture(simplices: number[][], vertices: { id: number; x?: number; y?: number; z?: number }[]) {
+  const ids = new Map<number, number>();
+  const dense = (id: number) => {
+    let i = ids.get(id);
+    if (i === undefined) ids.set(id, (i = ids.size));
+    return i;
+  };
+  const seen = new Set<number>();
+  const edges: number[] = [];
+  for (const s of simplices) for (const v of s) dense(v);
+  const n = ids.size;
+  // Past the cap, every stride-th cell, so a sample of the whole mesh is drawn rather than one corner of it.
+  let pairs = 0;
+  for (const s of simplices) pairs += (s.length * (s.length - 1)) / 2;
+  const stride = Math.max(1, Math.ceil(pairs / MESH_DRAW_EDGES));
+  for (let c = 0; c < simplices.length; c += stride) {
+    const s = simplices[c];
+    for (let a = 0; a < s.length && edges.length < 2 * MESH_DRAW_EDGES; a++)
+      for (let b = a + 1; b < s.length; b++) {
+        const i = dense(s[a]);
+        const j = dense(s[b]);
+        const key = Math.min(i, j) * n + Math.max(i, j);
+        if (seen.has(key)) continue;
+        seen.add(key);
+        edges.push(i, j);
+      }
+  }
+  const xyz = new Map(vertices.map((v) => [v.id, v]));
+  const ca = Math.cos(0.6), sa = Math.sin(0.6), ct = Math.cos(0.52), st = Math.sin(0.52);
+  const points: [number, number][] = new Array(n);
+  let positioned = true;
+  for (const [id, i] of ids) {
+    const v = xyz.get(id);
+    if (!v || typeof v.x !== 'number' || typeof v.y !== 'number') {
+      positioned = false;
+      break;
+    }
+    const z = v.z ?? 0;
+    const rx = ca * v.x - sa * v.y;
+    const ry = sa * v.x + ca * v.y;
+    points[i] = [rx, ct * z + st * ry];
+  }
+  const vertexIds = new Int32Array(n);
+  for (const [id, i] of ids) vertexIds[i] = id;
+  const e = Int32Array.from(edges);
+  const positions = positioned ? Float32Array.from(fitUnit(points)) : spectralLayout(n, e);
+  return { positions, vertexIds, edges: e };
+}

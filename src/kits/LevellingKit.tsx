@@ -1,0 +1,213 @@
+import { useState } from 'react';
+import { DEFAULT_STANDARD_KEY, LEVELLING_STANDARDS } from '../../shared/kits/levelling/LevellingStandard';
+import type { LevelNetResult, LevelNetSettings } from '../compute/kitService';
+import { Button } from '../ui/Button';
+import { engine } from '../workers/engineClient';
+import { DEMO, type NamedText } from './demoFiles';
+import { download, stem, toCsv } from './download';
+import { FilePick, readPicked } from './FilePick';
+import { Figure, KitReport } from './KitReport';
+import { KitStatus } from './KitStatus';
+import { LevelNetSketch } from './LevelNetSketch';
+import { useKitRun } from './useKitRun';
+
+const mm = (m: number) => (m * 1000).toFixed(1);
+
+/** Levelling net: stations and lines in, adjusted heights, residuals and loop misclosures against a tolerance out. */
+export function LevellingKit() {
+  const [stations, setStations] = useState<NamedText>();
+  const [lines, setLines] = useState<NamedText>();
+  const [standard, setStandard] = useState(DEFAULT_STANDARD_KEY);
+  const [cMm, setCMm] = useState(String(LEVELLING_STANDARDS.find((s) => s.key === DEFAULT_STANDARD_KEY)!.cMm));
+  const { state, start } = useKitRun<LevelNetResult>();
+
+  const settings = (): LevelNetSettings => (standard === 'custom' ? { standard, cMm: Number(cMm) } : { standard });
+  const compute = (s: NamedText | undefined, l: NamedText | undefined, set: LevelNetSettings = settings()) => {
+    if (!s || !l) return;
+    start(() => engine().levelNet(s.name, s.text, l.name, l.text, set));
+  };
+  const pickStations = async (f: File) => {
+    const s = await readPicked(f);
+    setStations(s);
+    compute(s, lines);
+  };
+  const pickLines = async (f: File) => {
+    const l = await readPicked(f);
+    setLines(l);
+    compute(stations, l);
+  };
+
+  return (
+    <div className="space-y-4">
+      <div className="no-print flex flex-wrap items-end gap-3">
+        <FilePick label="Stations (id, height; optional x, y)" accept=".csv,.tsv,.txt,text/csv" testId="stations-input" file={stations} onFile={pickStations} />
+        <FilePick label="Lines (from, to, rise, length_km)" accept=".csv,.tsv,.txt,text/csv" testId="lines-input" file={lines} onFile={pickLines} />
+        <div className="flex flex-col gap-1 text-sm">
+          <label className="flex flex-col gap-0.5">
+            <span className="text-xs text-ink-soft">Tolerance standard</span>
+            <select
+              aria-label="Tolerance standard"
+              className="rounded border border-rule bg-sheet px-2 py-1"
+              value={standard}
+              onChange={(e) => {
+                setStandard(e.target.value);
+                const listed = LEVELLING_STANDARDS.find((s) => s.key === e.target.value);
+                if (listed) {
+                  setCMm(String(listed.cMm));
+                  compute(stations, lines, { standard: listed.key });
+                }
+              }}
+            >
+              {LEVELLING_STANDARDS.map((s) => (
+                <option key={s.key} value={s.key}>
+                  {s.name} (c = {s.cMm} mm)
+                </option>
+              ))}
+              <option value="custom">project tolerance…</option>
+            </select>
+          </label>
+          <label className="flex items-center gap-1">
+            <span className="text-xs text-ink-soft">c (mm per √km)</span>
+            <input
+              aria-label="c in millimetres"
+              className="num w-20 rounded border border-rule bg-sheet px-1 py-0.5"
+              value={cMm}
+              onChange={(e) => {
+                setCMm(e.target.value);
+                setStandard('custom');
+              }}
+            />
+          </label>
+        </div>
+        <div className="flex flex-col gap-1">
+          <Button tone="primary" disabled={!stations || !lines} onClick={() => compute(stations, lines)} data-testid="levelling-compute">
+            Adjust the net
+          </Button>
+          <Button
+            onClick={() => {
+              setStations(DEMO.stations);
+              setLines(DEMO.lines);
+              compute(DEMO.stations, DEMO.lines);
+            }}
+          >
+            Load the invented ridge-line demo
+          </Button>
+        </div>
+      </div>
+      <KitStatus state={state} what="The levelling net" />
+      {state.status === 'done' && <LevellingResult result={state.result} inputs={[stations?.name ?? '', lines?.name ?? '']} />}
+    </div>
+  );
+}
+
+function LevellingResult({ result, inputs }: { result: LevelNetResult; inputs: string[] }) {
+  const r = result.report;
+  const name = stem(inputs[1]);
+  const failing = r.loops.filter((l) => !l.ok).length;
+  const exportCsv = () => {
+    const rows: (string | number | boolean | null)[][] = [];
+    for (const [id, h] of Object.entries(r.heights)) rows.push(['height', id, '', h, '', '', '', '']);
+    r.residuals.forEach((x) => {
+      const f = r.flagged.find((g) => g.from === x.from && g.to === x.to);
+      rows.push(['residual', x.from, x.to, x.residual, '', '', f?.allowable_mm ?? '', f ? 'flag' : 'ok']);
+    });
+    for (const l of r.loops) rows.push(['loop', l.stations.join(' '), '', '', l.misclosure_mm, l.length_km, l.allowable_mm, l.ok ? 'ok' : 'flag']);
+    for (const l of r.traverses) rows.push(['traverse', l.stations.join(' '), '', '', l.misclosure_mm, l.length_km, l.allowable_mm, l.ok ? 'ok' : 'flag']);
+    rows.push(['sigma0', '', '', r.sigma0, '', '', '', '']);
+    rows.push(['dof', '', '', r.dof, '', '', '', '']);
+    rows.push(['standard', r.standard.name, r.standard.rule, r.standard.c_mm, '', '', '', '']);
+    download(`${name}-levelling.csv`, toCsv(['kind', 'station_or_from', 'to', 'metres', 'misclosure_mm', 'length_km', 'allowable_mm', 'check'], rows), 'text/csv');
+  };
+  return (
+    <KitReport
+      title="Levelling net: adjusted heights and misclosures"
+      inputs={inputs}
+      settings={[
+        ['standard', `${r.standard.name}: ${r.standard.rule} (c = ${r.standard.c_mm} mm)`],
+        ['source', r.standard.source],
+        ['weights', r.weights],
+      ]}
+      kitCaution={r.caution}
+      onJson={() => download(`${name}-levelling.json`, JSON.stringify(r, null, 2), 'application/json')}
+      onCsv={exportCsv}
+    >
+      <div className="flex flex-wrap gap-2">
+        <Figure label="stations" value={String(result.stations.length)} />
+        <Figure label="lines" value={String(result.lines.length)} />
+        <Figure label="loops" value={String(r.loops.length)} testId="levelling-loop-count" />
+        <Figure label="loops over tolerance" value={String(failing)} tone={failing ? 'odds' : 'glued'} testId="levelling-loops-failing" />
+        <Figure label="flagged lines" value={String(r.flagged.length)} tone={r.flagged.length ? 'odds' : 'glued'} testId="levelling-flag-count" />
+        <Figure label="σ0 (mm, 1 km)" value={r.sigma0 === null ? '— (dof 0)' : mm(r.sigma0)} testId="levelling-sigma0" />
+        <Figure label="degrees of freedom" value={String(r.dof)} testId="levelling-dof" />
+      </div>
+      <LevelNetSketch result={result} />
+      {r.flagged.length > 0 && (
+        <p className="rounded border border-odds bg-odds-soft p-2 text-sm" data-testid="levelling-flagged">
+          Flagged:{' '}
+          {r.flagged.map((f) => (
+            <span key={`${f.from}-${f.to}`} className="num mr-3">
+              {f.from} → {f.to} residual {f.residual_mm.toFixed(1)} mm (allowable {f.allowable_mm.toFixed(1)} mm)
+            </span>
+          ))}
+        </p>
+      )}
+      <div className="grid gap-4 lg:grid-cols-2">
+        <Table caption="Adjusted heights" head={['station', 'height (m)', '']}>
+          {result.stations.map((s) => (
+            <tr key={s.id}>
+              <td className="num">{s.id}</td>
+              <td className="num text-right">{r.heights[s.id].toFixed(4)}</td>
+              <td className="text-xs text-ink-soft">{s.benchmark ? 'benchmark (fixed)' : ''}</td>
+            </tr>
+          ))}
+        </Table>
+        <Table caption="Residuals (adjusted − observed rise)" head={['from', 'to', 'residual (mm)', 'check']}>
+          {r.residuals.map((x, i) => {
+            const bad = r.flagged.some((f) => f.from === x.from && f.to === x.to);
+            return (
+              <tr key={i} className={bad ? 'bg-odds-soft' : ''}>
+                <td className="num">{x.from}</td>
+                <td className="num">{x.to}</td>
+                <td className="num text-right">{mm(x.residual)}</td>
+                <td className={bad ? 'text-odds' : 'text-glued'}>{bad ? 'flag' : 'ok'}</td>
+              </tr>
+            );
+          })}
+        </Table>
+      </div>
+      <Table caption="Loops and benchmark runs: misclosure against c·√K" head={['', 'stations', 'length (km)', 'misclosure (mm)', 'allowable (mm)', 'check']} testId="levelling-loops">
+        {[...r.loops.map((l) => ['loop', l] as const), ...r.traverses.map((l) => ['run', l] as const)].map(([kind, l], i) => (
+          <tr key={i} className={l.ok ? '' : 'bg-odds-soft'}>
+            <td className="text-xs text-ink-soft">{kind}</td>
+            <td className="num text-xs">{l.stations.join(' → ')}</td>
+            <td className="num text-right">{l.length_km.toFixed(2)}</td>
+            <td className="num text-right">{l.misclosure_mm.toFixed(1)}</td>
+            <td className="num text-right">{l.allowable_mm.toFixed(1)}</td>
+            <td className={l.ok ? 'text-glued' : 'text-odds'}>{l.ok ? 'ok' : 'flag'}</td>
+          </tr>
+        ))}
+      </Table>
+    </KitReport>
+  );
+}
+
+/** A compact results table. */
+export function Table({ caption, head, children, testId }: { caption: string; head: string[]; children: React.ReactNode; testId?: string }) {
+  return (
+    <div className="overflow-auto rounded border border-rule bg-sheet">
+      <table className="w-full text-sm" data-testid={testId}>
+        <caption className="border-b border-rule px-2 py-1 text-left text-xs font-semibold">{caption}</caption>
+        <thead>
+          <tr className="text-left text-xs text-ink-soft">
+            {head.map((h, i) => (
+              <th key={i} className="px-2 py-0.5 font-normal">
+                {h}
+              </th>
+            ))}
+          </tr>
+        </thead>
+        <tbody className="[&_td]:px-2 [&_td]:py-0.5">{children}</tbody>
+      </table>
+    </div>
+  );
+}

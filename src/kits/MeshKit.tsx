@@ -1,0 +1,119 @@
+import * as Comlink from 'comlink';
+import { useState } from 'react';
+import type { MeshResult } from '../compute/kitService';
+import type { Progress } from '../compute/computeService';
+import { Button } from '../ui/Button';
+import { ProgressBar } from '../ui/ProgressBar';
+import { engine } from '../workers/engineClient';
+import { DEMO } from './demoFiles';
+import { download, stem, toCsv } from './download';
+import { FilePick } from './FilePick';
+import { Figure, KitReport } from './KitReport';
+import { KitStatus } from './KitStatus';
+import { MeshSketch } from './MeshSketch';
+import { useKitRun } from './useKitRun';
+
+const MESH_CAUTION = 'Betti numbers are exact (computed over GF(2)); orientability is a combinatorial check of the triangles. Over GF(2) a closed piece always encloses one void, orientable or not.';
+
+/** Mesh topology: an OBJ or OFF mesh in; components, tunnels, voids, closed/orientable and representative cycles out. */
+export function MeshKit() {
+  const [file, setFile] = useState<{ name: string }>();
+  const [progress, setProgress] = useState<Progress>();
+  const { state, start } = useKitRun<MeshResult>();
+  const compute = (name: string, data: string | Blob) => {
+    setFile({ name });
+    setProgress(undefined);
+    start(() => engine().meshTopology(name, data, Comlink.proxy((p: Progress) => setProgress(p))));
+  };
+  return (
+    <div className="space-y-4">
+      <div className="no-print flex flex-wrap items-end gap-3">
+        <FilePick label="Mesh (OBJ or OFF)" accept=".obj,.off" testId="mesh-input" file={file ? { name: file.name, text: '' } : undefined} onFile={(f) => compute(f.name, f)} />
+        <Button onClick={() => compute(DEMO.mesh.name, DEMO.mesh.text)}>Load the invented culvert ring</Button>
+      </div>
+      {state.status === 'running' && (
+        <div className="max-w-md space-y-1 text-sm text-ink-soft" data-testid="mesh-progress">
+          <p>Computing in the engine worker{progress ? `: ${progress.phase}` : '…'} — large meshes take a while; the page stays usable.</p>
+          <ProgressBar fraction={progress?.fraction ?? 0} label="mesh topology progress" />
+        </div>
+      )}
+      {state.status !== 'running' && <KitStatus state={state} what="The mesh" />}
+      {state.status === 'done' && <MeshResultView key={file?.name} result={state.result} input={file?.name ?? ''} />}
+    </div>
+  );
+}
+
+function MeshResultView({ result, input }: { result: MeshResult; input: string }) {
+  const r = result.report;
+  const [chosen, setChosen] = useState(0);
+  const cycle = r.cycles[chosen];
+  const name = stem(input);
+  const yesNo = (v: boolean | null) => (v === null ? 'not decided' : v ? 'yes' : 'no');
+  const exportCsv = () => {
+    const rows: (string | number)[][] = [
+      ['vertices', r.vertices],
+      ['edges', r.edges],
+      ['triangles', r.triangles],
+      ...r.betti.map((b, k) => [`b${k}`, b] as (string | number)[]),
+      ['euler', r.euler],
+      ['closed', String(r.closed)],
+      ['orientable', String(r.orientable)],
+      ['boundary_edges', r.boundaryEdges],
+      ['non_manifold_edges', r.nonManifoldEdges],
+      ['non_manifold_vertices', r.nonManifoldVertices],
+    ];
+    download(`${name}-mesh.csv`, toCsv(['quantity', 'value'], rows), 'text/csv');
+  };
+  return (
+    <KitReport
+      title="Mesh topology: components, tunnels and voids"
+      inputs={[input]}
+      settings={[
+        ['coefficients', r.field],
+        ['time', `${r.ms.total} ms (cohomology ${r.ms.cohomology} ms, cycles ${r.ms.cycles} ms)`],
+      ]}
+      kitCaution={MESH_CAUTION}
+      onJson={() => download(`${name}-mesh.json`, JSON.stringify(r), 'application/json')}
+      onCsv={exportCsv}
+    >
+      <div className="flex flex-wrap gap-2">
+        <Figure label="Betti numbers b₀, b₁, b₂" value={`(${r.betti.join(', ')})`} testId="mesh-betti" />
+        <Figure label="components" value={String(r.betti[0])} />
+        <Figure label="tunnels" value={String(r.betti[1])} />
+        <Figure label="enclosed voids" value={String(r.betti[2])} />
+        <Figure label="closed" value={yesNo(r.closed)} testId="mesh-closed" />
+        <Figure label="orientable" value={yesNo(r.orientable)} testId="mesh-orientable" />
+        <Figure label="Euler characteristic" value={String(r.euler)} />
+      </div>
+      <p className="num text-xs text-ink-soft">
+        {r.vertices.toLocaleString('en')} vertices · {r.edges.toLocaleString('en')} edges · {r.triangles.toLocaleString('en')} triangles · boundary edges {r.boundaryEdges} · non-manifold edges {r.nonManifoldEdges} · winding consistent {yesNo(r.windingConsistent)}
+      </p>
+      {result.cyclesSkipped && (
+        <p role="status" className="rounded border border-rule bg-rule-soft p-2 text-sm" data-testid="mesh-cycles-skipped">
+          {result.cyclesSkipped}.
+        </p>
+      )}
+      <figure className="rounded border border-rule bg-sheet p-2">
+        {r.cycles.length > 0 && (
+          <div className="no-print mb-1 flex items-center gap-2 text-sm">
+            <label htmlFor="mesh-cycle" className="text-xs text-ink-soft">
+              Highlight
+            </label>
+            <select id="mesh-cycle" className="rounded border border-rule bg-sheet px-2 py-0.5" value={chosen} onChange={(e) => setChosen(Number(e.target.value))}>
+              {r.cycles.map((c, i) => (
+                <option key={i} value={i}>
+                  {c.degree === 1 ? 'tunnel loop' : 'void surface'} {i + 1} ({c.cells.length} {c.degree === 1 ? 'edges' : 'triangles'})
+                </option>
+              ))}
+            </select>
+          </div>
+        )}
+        <MeshSketch result={result} cycle={cycle} />
+        <figcaption className="text-xs text-ink-soft">
+          Oblique projection{result.edges.length / 2 < r.edges ? ` (${(result.edges.length / 2).toLocaleString('en')} of ${r.edges.toLocaleString('en')} edges drawn)` : ''}
+          {cycle ? <> · <span className="text-odds">the highlighted cycle</span> represents one class of H{cycle.degree === 1 ? '₁' : '₂'}</> : ''}
+        </figcaption>
+      </figure>
+    </KitReport>
+  );
+}

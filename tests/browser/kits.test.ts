@@ -1,0 +1,131 @@
+import { readFileSync } from 'node:fs';
+import { afterAll, beforeAll, expect, inject, test } from 'vitest';
+import type { Browser, Page } from 'playwright-core';
+import { ARTIFACTS, launch, newPage, screenshot, seenTestIds, tempFile, watchTestIds } from './browser';
+
+let browser: Browser;
+beforeAll(async () => {
+  browser = await launch();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+const demo = (name: string) => tempFile(name, readFileSync(new URL(`../../shared/kits/demo/${name}`, import.meta.url), 'utf8'));
+
+/** An OBJ torus of n × m squares, each cut in two (Betti numbers 1, 2, 1). */
+function torusObj(n: number, m: number): string {
+  const lines: string[] = [];
+  for (let i = 0; i < n; i++)
+    for (let j = 0; j < m; j++) {
+      const u = (2 * Math.PI * i) / n;
+      const w = (2 * Math.PI * j) / m;
+      lines.push(`v ${((3 + Math.cos(w)) * Math.cos(u)).toFixed(4)} ${((3 + Math.cos(w)) * Math.sin(u)).toFixed(4)} ${Math.sin(w).toFixed(4)}`);
+    }
+  const id = (i: number, j: number) => (i % n) * m + (j % m) + 1;
+  for (let i = 0; i < n; i++) for (let j = 0; j < m; j++) lines.push(`f ${id(i, j)} ${id(i + 1, j)} ${id(i + 1, j + 1)}`, `f ${id(i, j)} ${id(i + 1, j + 1)} ${id(i, j + 1)}`);
+  return lines.join('\n') + '\n';
+}
+
+/** Click the report's JSON export and read back the downloaded file. */
+async function exportedJson(page: Page, expectedName: RegExp): Promise<Record<string, unknown>> {
+  const [download] = await Promise.all([page.waitForEvent('download'), page.getByTestId('export-json').click()]);
+  expect(download.suggestedFilename()).toMatch(expectedName);
+  return JSON.parse(readFileSync(await download.path(), 'utf8')) as Record<string, unknown>;
+}
+
+/** The canvas is on the page with a drawn area and something painted on it. */
+async function drawn(page: Page, testId: string): Promise<boolean> {
+  return page.getByTestId(testId).evaluate((c: HTMLCanvasElement) => {
+    if (c.width < 50 || c.height < 50) return false;
+    const data = c.getContext('2d')!.getImageData(0, 0, c.width, c.height).data;
+    for (let i = 3; i < data.length; i += 4) if (data[i] !== 0) return true;
+    return false;
+  });
+}
+
+test('each kit goes from uploaded files to a drawn result and a JSON export; a bad CSV shows located problems', async () => {
+  const { page, context, errors } = await newPage(browser);
+  await page.goto(inject('appUrl'));
+  await page.getByRole('link', { name: 'Kits', exact: true }).click();
+  await page.waitForURL(/\/kits$/);
+
+  // Levelling net: the invented ridge-line net, second order class II by default.
+  await page.getByRole('navigation', { name: 'Kits' }).getByRole('link', { name: 'Levelling net' }).click();
+  await page.getByTestId('stations-input').setInputFiles(demo('ridge-line-stations.csv'));
+  await page.getByTestId('lines-input').setInputFiles(demo('ridge-line-lines.csv'));
+  await expect.poll(() => page.getByTestId('levelling-loop-count').textContent(), { timeout: 15_000 }).toBe('5');
+  expect(await page.getByTestId('levelling-loops-failing').textContent()).toBe('2');
+  expect(await page.getByTestId('levelling-flagged').textContent()).toContain('RL-04 → RL-07');
+  expect(await page.getByTestId('levelling-dof').textContent()).toBe('6');
+  expect(await page.getByTestId('kit-settings').textContent()).toContain('second order, class II');
+  expect(await page.getByRole('complementary', { name: 'Cautions' }).textContent()).toContain('Defer to licensed engineers');
+  await expect.poll(() => drawn(page, 'levelling-sketch')).toBe(true);
+  await screenshot(page, 'kits-levelling');
+  // On paper: the controls go, the report keeps its standard and the cautions.
+  await page.emulateMedia({ media: 'print' });
+  expect(await page.getByTestId('export-json').isVisible()).toBe(false);
+  expect(await page.getByTestId('stations-input-drop').isVisible()).toBe(false);
+  expect(await page.getByRole('complementary', { name: 'Cautions' }).isVisible()).toBe(true);
+  expect(await page.getByTestId('kit-settings').isVisible()).toBe(true);
+  await page.screenshot({ path: `${ARTIFACTS}kits-levelling-print.png`, fullPage: true });
+  await page.emulateMedia({ media: 'screen' });
+  const levelling = await exportedJson(page, /levelling\.json$/);
+  expect((levelling.loops as unknown[]).length).toBe(5);
+  expect((levelling.standard as { key: string }).key).toBe('second-II');
+
+  // Another standard: the report names the one used.
+  await page.getByLabel('Tolerance standard').selectOption('third');
+  await expect.poll(() => page.getByTestId('kit-settings').textContent(), { timeout: 15_000 }).toContain('third order');
+
+  // A lines file with a bad number: the problem is located to its file and line.
+  await page.getByTestId('lines-input').setInputFiles(tempFile('bad-lines.csv', 'from,to,rise,length_km\nRL-01,RL-02,7.4997,0.82\nRL-02,RL-03,seven,0.95\n'));
+  await expect.poll(() => page.getByRole('alert').textContent(), { timeout: 15_000 }).toContain('bad-lines.csv line 3');
+
+  // Frame check: the footbridge with its counter-diagonal, one state of self-stress.
+  await page.getByRole('navigation', { name: 'Kits' }).getByRole('link', { name: 'Frame check' }).click();
+  await page.getByTestId('joints-input').setInputFiles(demo('footbridge-joints.csv'));
+  await page.getByTestId('bars-input').setInputFiles(demo('footbridge-bars-extra-diagonal.csv'));
+  await expect.poll(() => page.getByTestId('frame-dims').textContent(), { timeout: 15_000 }).toBe('[0, 1]');
+  expect(await page.getByTestId('frame-classification').textContent()).toContain('statically indeterminate to degree 1');
+  expect(await page.getByTestId('frame-self-stresses').textContent()).toBe('1');
+  await expect.poll(() => drawn(page, 'frame-sketch')).toBe(true);
+  await screenshot(page, 'kits-frame');
+  const frame = await exportedJson(page, /frame\.json$/);
+  expect(frame.dims).toEqual([0, 1]);
+
+  // A square panel without a diagonal, its bars dropped on the picker: one mechanism, drawn as arrows.
+  await page.getByTestId('joints-input').setInputFiles(tempFile('square-joints.csv', 'id,x,y,fixed\nA,0,0,xy\nB,4,0,y\nC,4,3,\nD,0,3,\n'));
+  await page.getByTestId('bars-input-drop').evaluate((el, text) => {
+    const dt = new DataTransfer();
+    dt.items.add(new File([text], 'square-bars.csv', { type: 'text/csv' }));
+    el.dispatchEvent(new DragEvent('drop', { dataTransfer: dt, bubbles: true, cancelable: true }));
+  }, 'id,from,to\nAB,A,B\nBC,B,C\nCD,C,D\nDA,D,A\n');
+  await expect.poll(() => page.getByTestId('frame-mechanisms').textContent(), { timeout: 15_000 }).toBe('1');
+  expect(await page.getByTestId('frame-dims').textContent()).toBe('[1, 0]');
+  expect(await page.getByLabel('Show').inputValue()).toBe('mechanism:0');
+  await expect.poll(() => drawn(page, 'frame-sketch')).toBe(true);
+  await screenshot(page, 'kits-frame-mechanism');
+
+  // Mesh topology: the culvert ring, a torus.
+  await page.getByRole('navigation', { name: 'Kits' }).getByRole('link', { name: 'Mesh topology' }).click();
+  await page.getByTestId('mesh-input').setInputFiles(demo('culvert-ring.obj'));
+  await expect.poll(() => page.getByTestId('mesh-betti').textContent(), { timeout: 20_000 }).toBe('(1, 2, 1)');
+  expect(await page.getByTestId('mesh-closed').textContent()).toBe('yes');
+  expect(await page.getByTestId('mesh-orientable').textContent()).toBe('yes');
+  await expect.poll(() => drawn(page, 'mesh-sketch')).toBe(true);
+  await screenshot(page, 'kits-mesh');
+  const mesh = await exportedJson(page, /mesh\.json$/);
+  expect(mesh.betti).toEqual([1, 2, 1]);
+
+  // A torus of 217,800 triangles: computed in the worker with a progress note, cycles skipped with a message.
+  await watchTestIds(page, ['mesh-progress']);
+  await page.getByTestId('mesh-input').setInputFiles(tempFile('big-torus.obj', torusObj(330, 330)));
+  await expect.poll(() => page.getByTestId('mesh-cycles-skipped').textContent(), { timeout: 30_000 }).toContain('this mesh has 217,800');
+  expect(await page.getByTestId('mesh-betti').textContent()).toBe('(1, 2, 1)');
+  expect((await seenTestIds(page))['mesh-progress']).toBe(true);
+  await screenshot(page, 'kits-mesh-large');
+
+  expect(errors).toEqual([]);
+  await context.close();
+});
