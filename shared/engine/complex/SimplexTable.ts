@@ -12,6 +12,8 @@ export class SimplexTable {
   private slots: Int32Array;
   private mask: number;
   private count = 0;
+  /** False for a table built from known-unique tuples until something looks one up. */
+  private indexed = true;
 
   constructor(width: number, expected = 16) {
     this.width = width;
@@ -20,6 +22,28 @@ export class SimplexTable {
     this.slots = new Int32Array(cap).fill(-1);
     this.mask = cap - 1;
     this.verts = new Int32Array(Math.max(expected, 4) * width);
+  }
+
+  /**
+   * A table over tuples already known to be distinct (as a closure built by
+   * bucketing produces them). The hash index is only built if a lookup ever
+   * needs it, which a model without per-cell entries never does.
+   */
+  static ofUnique(width: number, verts: Int32Array, count: number): SimplexTable {
+    const t = new SimplexTable(width, 1);
+    t.verts = verts;
+    t.count = count;
+    t.indexed = false;
+    return t;
+  }
+
+  private ensureIndex(): void {
+    if (this.indexed) return;
+    this.indexed = true;
+    let cap = 16;
+    while (cap < this.count * 2) cap *= 2;
+    this.slots = new Int32Array(cap / 2);
+    this.rehash();
   }
 
   get size(): number {
@@ -37,6 +61,7 @@ export class SimplexTable {
 
   /** Index of the tuple at `buf[off ..]`, or -1. */
   find(buf: ArrayLike<number>, off = 0): number {
+    this.ensureIndex();
     let slot = this.hash(buf, off) & this.mask;
     for (;;) {
       const idx = this.slots[slot];
@@ -48,6 +73,7 @@ export class SimplexTable {
 
   /** Index of the tuple at `buf[off ..]`, inserting it if new. */
   insert(buf: ArrayLike<number>, off = 0): number {
+    this.ensureIndex();
     let slot = this.hash(buf, off) & this.mask;
     for (;;) {
       const idx = this.slots[slot];
@@ -70,6 +96,7 @@ export class SimplexTable {
 
   /** {@link insert} for width 2, the hot path when closing triangles to edges. */
   insert2(a: number, b: number): number {
+    this.ensureIndex();
     let h = Math.imul(0x811c9dc5 ^ a, 0x9e3779b1);
     h ^= h >>> 15;
     h = Math.imul(h ^ b, 0x9e3779b1);
@@ -97,6 +124,7 @@ export class SimplexTable {
 
   /** {@link insert} for width 3: the listed triangles of a surface. */
   insert3(a: number, b: number, c: number): number {
+    this.ensureIndex();
     let h = Math.imul(0x811c9dc5 ^ a, 0x9e3779b1);
     h ^= h >>> 15;
     h = Math.imul(h ^ b, 0x9e3779b1);

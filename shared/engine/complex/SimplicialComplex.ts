@@ -1,3 +1,4 @@
+import { closeTriangleEdges } from './closeTriangleEdges';
 import { SimplexTable } from './SimplexTable';
 
 /**
@@ -62,21 +63,18 @@ export function buildComplex(listed: Int32Array[], vertexIds: Float64Array): Sim
     const lower = simplices[k - 1];
     const n = table.size;
     const verts = table.vertices;
+    if (k === 2) {
+      const closed = closeTriangleEdges(verts, n, lower, vertexIds.length);
+      simplices[1] = closed.edges;
+      faces[2] = closed.faces;
+      continue;
+    }
     const f = new Int32Array(n * (k + 1));
     if (k === 1) {
       // Faces of an edge (a, b): opposite a is b, opposite b is a.
       for (let s = 0; s < n; s++) {
         f[2 * s] = verts[2 * s + 1];
         f[2 * s + 1] = verts[2 * s];
-      }
-    } else if (k === 2) {
-      for (let s = 0; s < n; s++) {
-        const a = verts[3 * s];
-        const b = verts[3 * s + 1];
-        const c = verts[3 * s + 2];
-        f[3 * s] = lower.insert2(b, c);
-        f[3 * s + 1] = lower.insert2(a, c);
-        f[3 * s + 2] = lower.insert2(a, b);
       }
     } else {
       for (let s = 0; s < n; s++) {
