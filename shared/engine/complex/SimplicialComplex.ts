@@ -1,5 +1,6 @@
 import { closeTriangleEdges } from './closeTriangleEdges';
 import { SimplexTable } from './SimplexTable';
+import { uniqueTriangles } from './uniqueTriangles';
 
 /**
  * A finite simplicial complex closed under faces, every simplex oriented by
@@ -38,14 +39,14 @@ export function buildComplex(listed: Int32Array[], vertexIds: Float64Array): Sim
   const simplices: SimplexTable[] = [];
   // Every vertex of a listed simplex is a 0-simplex, and dense indices are
   // already 0 … n−1 in order: the vertex table is the identity.
-  const vertices = new SimplexTable(1, vertexIds.length);
-  const one = new Int32Array(1);
-  for (let v = 0; v < vertexIds.length; v++) {
-    one[0] = v;
-    vertices.insert(one, 0);
-  }
-  simplices.push(vertices);
+  const identity = new Int32Array(vertexIds.length);
+  for (let v = 0; v < identity.length; v++) identity[v] = v;
+  simplices.push(SimplexTable.ofUnique(1, identity, identity.length));
   for (let k = 1; k <= top; k++) {
+    if (k === 2 && top === 2) {
+      simplices.push(SimplexTable.ofUnique(3, new Int32Array(0), 0)); // replaced below
+      continue;
+    }
     const n = listed[k].length / (k + 1);
     const fromAbove = k < top ? listed[k + 1].length : 0;
     simplices.push(new SimplexTable(k + 1, n + fromAbove));
@@ -53,7 +54,11 @@ export function buildComplex(listed: Int32Array[], vertexIds: Float64Array): Sim
   for (let k = top; k >= 1; k--) {
     const table = simplices[k];
     const list = listed[k];
-    if (k === 2) for (let off = 0; off < list.length; off += 3) table.insert3(list[off], list[off + 1], list[off + 2]);
+    if (k === 2 && top === 2) {
+      // A surface (the common large case): its triangles come only from the list.
+      const unique = uniqueTriangles(list, vertexIds.length);
+      simplices[2] = SimplexTable.ofUnique(3, unique.verts, unique.count);
+    } else if (k === 2) for (let off = 0; off < list.length; off += 3) table.insert3(list[off], list[off + 1], list[off + 2]);
     else for (let off = 0; off < list.length; off += k + 1) table.insert(list, off);
   }
   const faces: Int32Array[] = [new Int32Array(0)];
