@@ -46,25 +46,44 @@ export function closeTriangleEdges(tri: Int32Array, nTriangles: number, listed: 
     upper[p] = lv[2 * e + 1];
     from[p] = -1;
   }
+  // Within each lower vertex's bucket, every filed edge points at the first
+  // position holding the same upper vertex: its canonical copy.
+  const canon = new Int32Array(total);
+  const lowerAt = new Int32Array(total);
   const stamp = new Int32Array(nVertices).fill(-1);
-  const idOf = new Int32Array(nVertices);
-  const verts = new Int32Array(2 * total);
-  const faces = new Int32Array(3 * nTriangles);
-  let count = 0;
+  const firstAt = new Int32Array(nVertices);
   for (let lo = 0; lo < nVertices; lo++) {
     for (let p = start[lo]; p < start[lo + 1]; p++) {
       const hi = upper[p];
-      let id: number;
-      if (stamp[hi] === lo) id = idOf[hi];
-      else {
-        id = count++;
+      if (stamp[hi] !== lo) {
         stamp[hi] = lo;
-        idOf[hi] = id;
-        verts[2 * id] = lo;
-        verts[2 * id + 1] = hi;
+        firstAt[hi] = p;
       }
-      if (from[p] >= 0) faces[from[p]] = id;
+      canon[p] = firstAt[hi];
+      lowerAt[p] = lo;
     }
   }
+  // Number edges in the order the triangles meet them, not bucket order: a
+  // triangle's three edges then sit close together in every later array,
+  // which the reduction's sweeps over triangles read in turn.
+  const posOf = new Int32Array(3 * nTriangles);
+  for (let p = 0; p < total; p++) if (from[p] >= 0) posOf[from[p]] = p;
+  const idAt = new Int32Array(total).fill(-1);
+  const verts = new Int32Array(2 * total);
+  const faces = new Int32Array(3 * nTriangles);
+  let count = 0;
+  const idFor = (p: number) => {
+    const c = canon[p];
+    let id = idAt[c];
+    if (id < 0) {
+      id = count++;
+      idAt[c] = id;
+      verts[2 * id] = lowerAt[c];
+      verts[2 * id + 1] = upper[c];
+    }
+    return id;
+  };
+  for (let e = 0; e < 3 * nTriangles; e++) faces[e] = idFor(posOf[e]);
+  for (let p = 0; p < total; p++) if (from[p] < 0) idFor(p);
   return { edges: SimplexTable.ofUnique(2, verts, count), faces };
 }
