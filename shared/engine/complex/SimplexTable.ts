@@ -94,65 +94,6 @@ export class SimplexTable {
     return idx;
   }
 
-  /** {@link insert} for width 2, the hot path when closing triangles to edges. */
-  insert2(a: number, b: number): number {
-    this.ensureIndex();
-    let h = Math.imul(0x811c9dc5 ^ a, 0x9e3779b1);
-    h ^= h >>> 15;
-    h = Math.imul(h ^ b, 0x9e3779b1);
-    h ^= h >>> 15;
-    let slot = h & this.mask;
-    const verts = this.verts;
-    for (;;) {
-      const idx = this.slots[slot];
-      if (idx < 0) break;
-      if (verts[2 * idx] === a && verts[2 * idx + 1] === b) return idx;
-      slot = (slot + 1) & this.mask;
-    }
-    const idx = this.count++;
-    if (this.count * 2 > this.verts.length) {
-      const grown = new Int32Array(this.verts.length * 2);
-      grown.set(this.verts);
-      this.verts = grown;
-    }
-    this.verts[2 * idx] = a;
-    this.verts[2 * idx + 1] = b;
-    this.slots[slot] = idx;
-    if (this.count * 2 > this.slots.length) this.rehash();
-    return idx;
-  }
-
-  /** {@link insert} for width 3: the listed triangles of a surface. */
-  insert3(a: number, b: number, c: number): number {
-    this.ensureIndex();
-    let h = Math.imul(0x811c9dc5 ^ a, 0x9e3779b1);
-    h ^= h >>> 15;
-    h = Math.imul(h ^ b, 0x9e3779b1);
-    h ^= h >>> 15;
-    h = Math.imul(h ^ c, 0x9e3779b1);
-    h ^= h >>> 15;
-    let slot = h & this.mask;
-    const verts = this.verts;
-    for (;;) {
-      const idx = this.slots[slot];
-      if (idx < 0) break;
-      if (verts[3 * idx] === a && verts[3 * idx + 1] === b && verts[3 * idx + 2] === c) return idx;
-      slot = (slot + 1) & this.mask;
-    }
-    const idx = this.count++;
-    if (this.count * 3 > this.verts.length) {
-      const grown = new Int32Array(this.verts.length * 2);
-      grown.set(this.verts);
-      this.verts = grown;
-    }
-    this.verts[3 * idx] = a;
-    this.verts[3 * idx + 1] = b;
-    this.verts[3 * idx + 2] = c;
-    this.slots[slot] = idx;
-    if (this.count * 2 > this.slots.length) this.rehash();
-    return idx;
-  }
-
   private matches(idx: number, buf: ArrayLike<number>, off: number): boolean {
     const w = this.width;
     const base = idx * w;

@@ -58,8 +58,7 @@ export function buildComplex(listed: Int32Array[], vertexIds: Float64Array): Sim
       // A surface (the common large case): its triangles come only from the list.
       const unique = uniqueTriangles(list, vertexIds.length);
       simplices[2] = SimplexTable.ofUnique(3, unique.verts, unique.count);
-    } else if (k === 2) for (let off = 0; off < list.length; off += 3) table.insert3(list[off], list[off + 1], list[off + 2]);
-    else for (let off = 0; off < list.length; off += k + 1) table.insert(list, off);
+    } else for (let off = 0; off < list.length; off += k + 1) table.insert(list, off);
   }
   const faces: Int32Array[] = [new Int32Array(0)];
   const buf = new Int32Array(Math.max(top, 1));
