@@ -1,10 +1,10 @@
 import {
-  cohomology,
+  cohomologyOfText,
   formatProblem,
   ModelError,
   parseFieldOption,
-  readModel,
-  sections,
+  readModelText,
+  sectionsOfText,
   type FieldSpec,
   type Method,
 } from '../shared/engine';
@@ -69,31 +69,31 @@ export function runCli(argv: string[], io: CliIo): number {
       return 0;
     }
     const text = readText(io, args.file);
-    let parseMs = 0;
-    // Parsed on demand and handed straight to the engine, so no frame here keeps
-    // a large model's object graph alive while it computes.
-    const parsed = () => {
-      const t0 = performance.now();
-      const json = parseJson(text, args.file);
-      parseMs = performance.now() - t0;
-      return json;
+    // The engine reads the text itself (the simplex list straight into typed
+    // arrays), so no frame here holds a large model's parsed object graph.
+    const asJson = <T>(read: () => T): T => {
+      try {
+        return read();
+      } catch (err) {
+        if (err instanceof SyntaxError) throw new UsageError(`${args.file} is not valid JSON: ${oneLine(err.message)}`);
+        throw err;
+      }
     };
     switch (args.command) {
       case 'cohomology': {
-        const report = cohomology(parsed(), { method: args.method, field: args.field, splitBlocks: args.split });
-        report.ms.parse = Math.round(parseMs * 10) / 10;
-        report.ms.total = Math.round((report.ms.total + parseMs) * 10) / 10;
+        const report = asJson(() => cohomologyOfText(text, { method: args.method, field: args.field, splitBlocks: args.split }));
         io.stdout(JSON.stringify(report) + '\n');
         return 0;
       }
       case 'sections': {
         if (args.degree === undefined) throw new UsageError('sections needs --degree K');
-        const report = sections(parsed(), args.degree, { method: args.method, field: args.field, splitBlocks: args.split });
+        const degree = args.degree;
+        const report = asJson(() => sectionsOfText(text, degree, { method: args.method, field: args.field, splitBlocks: args.split }));
         io.stdout(JSON.stringify(report) + '\n');
         return 0;
       }
       case 'check':
-        return check(parsed(), args, io);
+        return check(asJson(() => readModelText(text, { field: args.field })), io);
       default:
         throw new UsageError(`unknown command "${args.command}"`);
     }
@@ -133,8 +133,7 @@ function kitCommand(args: Args, io: CliIo): unknown {
   }
 }
 
-function check(json: unknown, args: Args, io: CliIo): number {
-  const read = readModel(json, { field: args.field });
+function check(read: ReturnType<typeof readModelText>, io: CliIo): number {
   if (!read.sheaf) {
     io.stdout(JSON.stringify({ valid: false, problems: read.problems }) + '\n');
     io.stderr(`error: ${oneLine(formatProblem(read.problems[0]))}\n`);

@@ -27,7 +27,6 @@ export interface MorseStats {
 }
 
 export interface PhaseTimes {
-  parse?: number;
   build: number;
   reduce: number;
   solve: number;

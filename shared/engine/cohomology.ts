@@ -2,7 +2,8 @@ import type { CohomologyReport, Method } from './CohomologyReport';
 import { computeCohomology } from './computeCohomology';
 import { computeSections, type SectionsReport } from './computeSections';
 import type { FieldSpec } from './fields/FieldSpec';
-import { readModelOrThrow } from './model/readModel';
+import { readModelOrThrow, readModelTextOrThrow } from './model/readModel';
+import type { Sheaf } from './model/Sheaf';
 import type { Control } from './reduce/Cancelled';
 
 export interface CohomologyOptions {
@@ -32,6 +33,29 @@ export function cohomology(json: unknown, options: CohomologyOptions = {}): Coho
 /** A basis of H^degree on the original cells, for a parsed model file. */
 export function sections(json: unknown, degree: number, options: CohomologyOptions = {}): SectionsReport {
   const sheaf = readModelOrThrow(json, { field: options.field });
+  const run = computeCohomology(sheaf, options);
+  return computeSections(sheaf, run, degree).report;
+}
+
+/**
+ * As {@link cohomology}, for a model file's text: the engine parses it
+ * itself (the simplex list straight into typed arrays), so no caller's frame
+ * holds a parsed copy of a large model while it computes. Throws a
+ * SyntaxError for text that is not JSON.
+ */
+export function cohomologyOfText(text: string, options: CohomologyOptions = {}): CohomologyReport {
+  const t0 = performance.now();
+  const sheaf: Sheaf<unknown> = readModelTextOrThrow(text, { field: options.field });
+  const t1 = performance.now();
+  const { report } = computeCohomology(sheaf, options);
+  report.ms.build = Math.round((report.ms.build + t1 - t0) * 10) / 10;
+  report.ms.total = Math.round((report.ms.total + t1 - t0) * 10) / 10;
+  return report;
+}
+
+/** As {@link sections}, for a model file's text. */
+export function sectionsOfText(text: string, degree: number, options: CohomologyOptions = {}): SectionsReport {
+  const sheaf = readModelTextOrThrow(text, { field: options.field });
   const run = computeCohomology(sheaf, options);
   return computeSections(sheaf, run, degree).report;
 }

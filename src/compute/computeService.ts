@@ -7,6 +7,7 @@ import {
   computeCohomology,
   ENGINE_VERSION,
   readModel,
+  readModelText,
   sectionVectors,
   type Computation,
   type Problem,
@@ -190,7 +191,6 @@ export function createComputeService(db: GluefieldDb): ComputeService {
       const emit = throttle(onProgress);
       emit({ phase: 'read', fraction: 0 });
       const text = await loadModelText(db, modelId);
-      const json = JSON.parse(text);
       emit({ phase: 'build', fraction: 0 });
       const base = {
         modelId,
@@ -200,7 +200,9 @@ export function createComputeService(db: GluefieldDb): ComputeService {
         engineVersion: ENGINE_VERSION,
         settings,
       };
-      const read = readModel(json, { field: settings.field });
+      // From the text: the simplex list goes straight into typed arrays and no
+      // parsed copy of a large model stays alive while the engine runs.
+      const read = readModelText(text, { field: settings.field });
       if (!read.sheaf) {
         const error = read.problems.map((p) => `${p.where}: ${p.message}`).join('; ');
         const saved = await saveRun(db, { ...base, status: 'failed', error, ms: performance.now() - started });

@@ -5,7 +5,8 @@ import { MODEL_FORMAT, MODEL_VERSION, type VertexInfo } from './ModelFile';
 import { ModelError, ProblemList, type Problem } from './Problem';
 import { isObject, readFieldSpec } from './readField';
 import { readMaps } from './readMaps';
-import { readSimplices, denseIndexer } from './readSimplices';
+import { readSimplices, readScannedSimplices, denseIndexer } from './readSimplices';
+import { splitModelText, type ScannedSimplices } from './scanSimplices';
 import { readStalks } from './readStalks';
 import type { Sheaf } from './Sheaf';
 
@@ -21,6 +22,36 @@ export type ReadResult = { sheaf: Sheaf<unknown>; problems: [] } | { sheaf: unde
  * input: every problem comes back located (a JSON path, a cell or a pair).
  */
 export function readModel(json: unknown, options: ReadOptions = {}): ReadResult {
+  return readParsed(json, undefined, options);
+}
+
+/**
+ * Validate a model file given as text. The simplex list, nearly all of a
+ * large file, is scanned straight into typed arrays when it is in the plain
+ * form; the parsed remainder is small and dies with this call. Throws the
+ * SyntaxError JSON.parse gives for text that is not JSON.
+ */
+export function readModelText(text: string, options: ReadOptions = {}): ReadResult {
+  const split = splitModelText(text);
+  if (!split) return readParsed(JSON.parse(text), undefined, options);
+  let rest: unknown;
+  try {
+    rest = JSON.parse(split.rest);
+  } catch (err) {
+    // Report the error against the file as written, not the shortened text.
+    return readParsed(JSON.parse(text), undefined, options);
+  }
+  return readParsed(rest, split.simplices, options);
+}
+
+/** As {@link readModelText}, throwing a {@link ModelError} on the first problem. */
+export function readModelTextOrThrow(text: string, options: ReadOptions = {}): Sheaf<unknown> {
+  const r = readModelText(text, options);
+  if (!r.sheaf) throw new ModelError(r.problems);
+  return r.sheaf;
+}
+
+function readParsed(json: unknown, scanned: ScannedSimplices | undefined, options: ReadOptions): ReadResult {
   const problems = new ProblemList();
   const fail = (): ReadResult => ({ sheaf: undefined, problems: problems.items });
   if (!isObject(json)) {
@@ -39,7 +70,7 @@ export function readModel(json: unknown, options: ReadOptions = {}): ReadResult 
   const vertices = readVertices(json.vertices, problems);
   const fileField = readFieldSpec(json.field, problems);
   const fieldSpec = options.field ?? fileField;
-  const complex = readSimplices(json.simplices, problems);
+  const complex = scanned ? readScannedSimplices(scanned, problems) : readSimplices(json.simplices, problems);
   if (!complex || !fieldSpec || problems.any) return fail();
   const field = makeField(fieldSpec);
   const dense = denseIndexer(complex.vertexIds);

@@ -1,5 +1,6 @@
 import { buildComplex, type SimplicialComplex } from '../complex/SimplicialComplex';
 import type { ProblemList } from './Problem';
+import type { ScannedSimplices } from './scanSimplices';
 
 /**
  * Validate the `simplices` list and build its closure. Vertex ids may be any
@@ -60,6 +61,85 @@ export function readSimplices(raw: unknown, problems: ProblemList): SimplicialCo
     fill[k] += k + 1;
   }
   return buildComplex(listed, vertexIds);
+}
+
+/**
+ * As {@link readSimplices}, for a list already scanned from the text into
+ * typed arrays: the ids are known to be non-negative integers, so only the
+ * repeated-vertex rule is left to check. Same messages as the ordinary path.
+ */
+export function readScannedSimplices(scanned: ScannedSimplices, problems: ProblemList): SimplicialComplex | undefined {
+  const { ids, ends, count } = scanned;
+  let top = -1;
+  let maxId = 0;
+  const counts: number[] = [];
+  let from = 0;
+  for (let i = 0; i < count; i++) {
+    const to = ends[i];
+    const len = to - from;
+    for (let j = from; j < to; j++) {
+      const v = ids[j];
+      if (v > maxId) maxId = v;
+      for (let q = from; q < j; q++) {
+        if (ids[q] === v) {
+          problems.add(`simplices[${i}]`, `vertex ${v} appears twice in [${Array.from(ids.subarray(from, to)).join(',')}]`);
+          break;
+        }
+      }
+    }
+    if (problems.full) break;
+    if (len - 1 > top) {
+      for (let k = top + 1; k < len; k++) counts.push(0);
+      top = len - 1;
+    }
+    counts[len - 1]++;
+    from = to;
+  }
+  if (problems.any) return undefined;
+  const vertexIds = collectScannedIds(ids, maxId);
+  const dense = denseIndexer(vertexIds);
+  if (top === 2 && counts[0] === 0 && counts[1] === 0) {
+    // Triangles only (the usual large surface): renumber in place, no second copy.
+    const out = ids;
+    for (let j = 0; j < out.length; j++) out[j] = dense(out[j]);
+    for (let off = 0; off < out.length; off += 3) sortSmall(out, off, 3);
+    return buildComplex([new Int32Array(0), new Int32Array(0), out], vertexIds);
+  }
+  const listed = counts.map((c, k) => new Int32Array(c * (k + 1)));
+  const fill = new Array<number>(top + 1).fill(0);
+  from = 0;
+  for (let i = 0; i < count; i++) {
+    const to = ends[i];
+    const k = to - from - 1;
+    const out = listed[k];
+    const base = fill[k];
+    for (let j = 0; j <= k; j++) out[base + j] = dense(ids[from + j]);
+    if (k > 0) sortSmall(out, base, k + 1);
+    fill[k] += k + 1;
+    from = to;
+  }
+  return buildComplex(listed, vertexIds);
+}
+
+function collectScannedIds(ids: Int32Array, maxId: number): Float64Array {
+  if (maxId <= 4 * ids.length + 1_000_000) {
+    const seen = new Uint8Array(maxId + 1);
+    let n = 0;
+    for (let j = 0; j < ids.length; j++) {
+      if (seen[ids[j]] === 0) {
+        seen[ids[j]] = 1;
+        n++;
+      }
+    }
+    const out = new Float64Array(n);
+    let w = 0;
+    for (let v = 0; v <= maxId; v++) if (seen[v]) out[w++] = v;
+    return out;
+  }
+  const all = Float64Array.from(ids).sort();
+  let unique = 0;
+  for (let i = 0; i < all.length; i++) if (i === 0 || all[i] !== all[i - 1]) all[unique++] = all[i];
+  return all.slice(0, unique);
 }
 
 /** The distinct vertex ids, increasing; a presence table when ids are compact, else a sort. */
