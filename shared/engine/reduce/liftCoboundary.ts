@@ -4,6 +4,8 @@ import { matchedInverses } from './matchedInverses';
 import type { Field, Vec } from '../fields/Field';
 import { CRITICAL, type Matching } from './matchCells';
 import type { MorseEntries } from './MorseEntries';
+import { liftScalar } from './liftScalar';
+import { reduceMod } from './reduceMod';
 
 /**
  * The Morse coboundary δ_M^k by lifting: for the critical k-cells taken
@@ -17,6 +19,10 @@ import type { MorseEntries } from './MorseEntries';
  * case of a constant sheaf); {@link replayCoboundary} suits the opposite.
  */
 export function liftCoboundary<E>(X: BasedComplex<E>, mt: Matching, k: number, pivotRatio: number): MorseEntries<E> {
+  if (X.field.kind === 'real' || X.field.kind === 'prime') {
+    const fast = liftScalar(X as unknown as BasedComplex<number>, mt, k);
+    if (fast) return fast as unknown as MorseEntries<E>;
+  }
   const scalar = scalarShadow(X, k);
   if (!scalar) return liftBlocks(X, mt, k, pivotRatio);
   // Every block of δ^k is λ·I: coordinates never mix, so one lift of the
@@ -289,13 +295,4 @@ function solveNumbers(
     }
   }
   if (p > 0) for (let q = 0; q < ns; q++) x[base + q] = reduceMod(x[base + q], p, invP);
-}
-
-/**
- * a mod p for a non-negative integer a < 2^53 and p < 2^26, without the
- * slow floating-point `%`: the quotient estimate is off by at most one.
- */
-export function reduceMod(a: number, p: number, invP: number): number {
-  const r = a - p * Math.floor(a * invP);
-  return r < 0 ? r + p : r >= p ? r - p : r;
 }
