@@ -14,8 +14,7 @@ export function fromSheaf<E>(sheaf: Sheaf<E>): BasedComplex<E> {
     const n = cx.simplices[k + 1].size;
     const rowPtr = new Int32Array(n + 1);
     for (let r = 0; r <= n; r++) rowPtr[r] = r * width;
-    const sign = new Int8Array(n * width);
-    for (let e = 0; e < sign.length; e++) sign[e] = (e % width) % 2 === 0 ? 1 : -1;
+    const sign = alternatingRows(n, width);
     cob.push({
       rowPtr,
       col: cx.faces[k + 1],
@@ -26,4 +25,13 @@ export function fromSheaf<E>(sheaf: Sheaf<E>): BasedComplex<E> {
     });
   }
   return { field: sheaf.field, dims: sheaf.stalkDims, cob, blocks: sheaf.maps };
+}
+
+/** The incidence signs (-1)^i of n rows of `width` faces, by doubling copies of the first row. */
+function alternatingRows(n: number, width: number): Int8Array {
+  const sign = new Int8Array(n * width);
+  if (sign.length === 0) return sign;
+  for (let i = 0; i < width; i++) sign[i] = i % 2 === 0 ? 1 : -1;
+  for (let filled = width; filled < sign.length; filled *= 2) sign.copyWithin(filled, 0, Math.min(filled, sign.length - filled));
+  return sign;
 }

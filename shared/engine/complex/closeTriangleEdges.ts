@@ -4,8 +4,8 @@ import { SimplexTable } from './SimplexTable';
  * The edges of a set of triangles (plus any edges listed on their own),
  * without hashing: every edge is filed under its lower vertex by a counting
  * sort, and duplicates within a vertex's bucket are found with a stamp per
- * upper vertex. Two sequential passes over the incidences instead of a
- * million hash probes; edges come out ordered by lower vertex.
+ * upper vertex. Sequential passes over the incidences instead of a million
+ * hash probes.
  *
  * Returns the edge table and, for triangle t = (a < b < c), the edges
  * opposite a, b and c at faces[3t], faces[3t+1], faces[3t+2].
@@ -25,65 +25,60 @@ export function closeTriangleEdges(tri: Int32Array, nTriangles: number, listed: 
   for (let v = 0; v < nVertices; v++) start[v + 1] += start[v];
   const fill = start.slice(0, nVertices);
   const upper = new Int32Array(total);
-  // Which incidence each filed edge came from: 3t+i for a triangle face, −1 for a listed edge.
-  const from = new Int32Array(total);
   for (let t = 0; t < nTriangles; t++) {
     const a = tri[3 * t];
     const b = tri[3 * t + 1];
     const c = tri[3 * t + 2];
-    let p = fill[b]++;
-    upper[p] = c;
-    from[p] = 3 * t;
-    p = fill[a]++;
-    upper[p] = c;
-    from[p] = 3 * t + 1;
-    p = fill[a]++;
-    upper[p] = b;
-    from[p] = 3 * t + 2;
+    upper[fill[b]++] = c;
+    upper[fill[a]++] = c;
+    upper[fill[a]++] = b;
   }
-  for (let e = 0; e < nListed; e++) {
-    const p = fill[lv[2 * e]]++;
-    upper[p] = lv[2 * e + 1];
-    from[p] = -1;
-  }
-  // Within each lower vertex's bucket, every filed edge points at the first
-  // position holding the same upper vertex: its canonical copy.
-  const canon = new Int32Array(total);
-  const lowerAt = new Int32Array(total);
+  for (let e = 0; e < nListed; e++) upper[fill[lv[2 * e]]++] = lv[2 * e + 1];
+  // Within each lower vertex's bucket, give every distinct upper vertex a
+  // provisional edge id (bucket order), written over the filed upper vertex.
+  const pv = new Int32Array(2 * total);
   const stamp = new Int32Array(nVertices).fill(-1);
-  const firstAt = new Int32Array(nVertices);
+  const idOfUpper = new Int32Array(nVertices);
+  let distinct = 0;
   for (let lo = 0; lo < nVertices; lo++) {
     for (let p = start[lo]; p < start[lo + 1]; p++) {
       const hi = upper[p];
       if (stamp[hi] !== lo) {
         stamp[hi] = lo;
-        firstAt[hi] = p;
+        idOfUpper[hi] = distinct;
+        pv[2 * distinct] = lo;
+        pv[2 * distinct + 1] = hi;
+        distinct++;
       }
-      canon[p] = firstAt[hi];
-      lowerAt[p] = lo;
+      upper[p] = idOfUpper[hi];
     }
   }
-  // Number edges in the order the triangles meet them, not bucket order: a
+  // Replay the filing to read each incidence's provisional id, and number
+  // edges in the order the triangles meet them, not bucket order: a
   // triangle's three edges then sit close together in every later array,
   // which the reduction's sweeps over triangles read in turn.
-  const posOf = new Int32Array(3 * nTriangles);
-  for (let p = 0; p < total; p++) if (from[p] >= 0) posOf[from[p]] = p;
-  const idAt = new Int32Array(total).fill(-1);
-  const verts = new Int32Array(2 * total);
+  fill.set(start.subarray(0, nVertices));
+  const finalId = new Int32Array(distinct).fill(-1);
+  const verts = new Int32Array(2 * distinct);
   const faces = new Int32Array(3 * nTriangles);
   let count = 0;
-  const idFor = (p: number) => {
-    const c = canon[p];
-    let id = idAt[c];
+  const idFor = (q: number) => {
+    let id = finalId[q];
     if (id < 0) {
       id = count++;
-      idAt[c] = id;
-      verts[2 * id] = lowerAt[c];
-      verts[2 * id + 1] = upper[c];
+      finalId[q] = id;
+      verts[2 * id] = pv[2 * q];
+      verts[2 * id + 1] = pv[2 * q + 1];
     }
     return id;
   };
-  for (let e = 0; e < 3 * nTriangles; e++) faces[e] = idFor(posOf[e]);
-  for (let p = 0; p < total; p++) if (from[p] < 0) idFor(p);
+  for (let t = 0; t < nTriangles; t++) {
+    const a = tri[3 * t];
+    const b = tri[3 * t + 1];
+    faces[3 * t] = idFor(upper[fill[b]++]);
+    faces[3 * t + 1] = idFor(upper[fill[a]++]);
+    faces[3 * t + 2] = idFor(upper[fill[a]++]);
+  }
+  for (let e = 0; e < nListed; e++) idFor(upper[fill[lv[2 * e]]++]);
   return { edges: SimplexTable.ofUnique(2, verts, count), faces };
 }
