@@ -9,8 +9,7 @@ export class CellIndex {
   readonly offset: Int32Array;
   readonly total: number;
   readonly degreeOf: Uint8Array;
-  /** rowOf[k][e]: the (k+1)-cell of entry e of cob[k]. */
-  readonly rowOf: Int32Array[];
+  private rows: Int32Array[] | undefined;
   /**
    * coCell[k][p]: the coface, as a global cell number, of position p of
    * cob[k]'s transpose index, or -1 for a zero block. Saves two dependent
@@ -18,16 +17,17 @@ export class CellIndex {
    */
   readonly coCell: Int32Array[];
 
-  constructor(X: BasedComplex<unknown>) {
+  constructor(private readonly X: BasedComplex<unknown>) {
     const degrees = X.dims.length;
     this.offset = new Int32Array(degrees + 1);
     for (let k = 0; k < degrees; k++) this.offset[k + 1] = this.offset[k] + X.dims[k].length;
     this.total = this.offset[degrees];
     this.degreeOf = new Uint8Array(this.total);
     for (let k = 0; k < degrees; k++) this.degreeOf.fill(k, this.offset[k], this.offset[k + 1]);
-    this.rowOf = X.cob.map(expandRows);
     this.coCell = X.cob.map((cob, k) => {
-      const rows = this.rowOf[k];
+      // Only the matching's coface scans need rows, through coCell; the
+      // row array itself is kept only when asked for (the replay uses it).
+      const rows = expandRows(cob);
       const base = this.offset[k + 1];
       const out = new Int32Array(cob.colEntry.length);
       for (let p = 0; p < out.length; p++) {
@@ -36,6 +36,12 @@ export class CellIndex {
       }
       return out;
     });
+  }
+
+  /** rowOf[k][e]: the (k+1)-cell of entry e of cob[k]. */
+  get rowOf(): Int32Array[] {
+    this.rows ??= this.X.cob.map(expandRows);
+    return this.rows;
   }
 }
 

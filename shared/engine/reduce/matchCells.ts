@@ -62,7 +62,7 @@ export function matchCells<E>(X: BasedComplex<E>, options: MatchOptions): Matchi
   const real = F.kind === 'real';
   const degrees = X.dims.length;
   const index = new CellIndex(X);
-  const { offset, total, degreeOf, rowOf, coCell } = index;
+  const { offset, total, degreeOf, coCell } = index;
 
   const state = new Uint8Array(total);
   const freeFaces = new Int32Array(total);
@@ -75,22 +75,42 @@ export function matchCells<E>(X: BasedComplex<E>, options: MatchOptions): Matchi
     const d = X.dims[k];
     for (let c = 0; c < d.length; c++) if (d[c] === 0) state[offset[k] + c] = GONE;
   }
+  // Counts (and real scales) by rows and then by columns: two sequential
+  // sweeps instead of scattered increments per entry.
+  const blockMax = colScale ? Float64Array.from(X.blocks, (M) => maxAbs(F, M)) : undefined;
   for (let k = 0; k + 1 < degrees; k++) {
-    const cob = X.cob[k];
-    const rows = rowOf[k];
-    for (let e = 0; e < cob.block.length; e++) {
-      const b = cob.block[e];
-      if (b < 0) continue;
-      const r = offset[k + 1] + rows[e];
-      const c = offset[k] + cob.col[e];
-      freeFaces[r]++;
-      freeCofaces[c]++;
-      if (colScale && rowScale) {
-        const s = maxAbs(F, X.blocks[b]);
-        if (s > rowScale[r]) rowScale[r] = s;
-        if (s > colScale[c]) colScale[c] = s;
-        if (s > scale[k]) scale[k] = s;
+    const { rowPtr, colPtr, colEntry, block } = X.cob[k];
+    const up = offset[k + 1];
+    for (let r = 0; r + 1 < rowPtr.length; r++) {
+      let n = 0;
+      let most = 0;
+      for (let e = rowPtr[r]; e < rowPtr[r + 1]; e++) {
+        const b = block[e];
+        if (b < 0) continue;
+        n++;
+        if (blockMax && blockMax[b] > most) most = blockMax[b];
       }
+      freeFaces[up + r] = n;
+      if (rowScale) {
+        rowScale[up + r] = most;
+        if (most > scale[k]) scale[k] = most;
+      }
+    }
+    const cells = coCell[k];
+    const low = offset[k];
+    for (let c = 0; c + 1 < colPtr.length; c++) {
+      let n = 0;
+      let most = 0;
+      for (let p = colPtr[c]; p < colPtr[c + 1]; p++) {
+        if (cells[p] < 0) continue;
+        n++;
+        if (blockMax) {
+          const s = blockMax[block[colEntry[p]]];
+          if (s > most) most = s;
+        }
+      }
+      freeCofaces[low + c] = n;
+      if (colScale) colScale[low + c] = most;
     }
   }
 
@@ -149,22 +169,21 @@ export function matchCells<E>(X: BasedComplex<E>, options: MatchOptions): Matchi
     }
     return -1;
   };
-  const freeCofaceEntry = (k: number, s: number): number => {
-    const cob = X.cob[k];
-    const base = offset[k + 1];
-    const rows = rowOf[k];
-    for (let p = cob.colPtr[s]; p < cob.colPtr[s + 1]; p++) {
-      const e = cob.colEntry[p];
-      if (cob.block[e] >= 0 && state[base + rows[e]] === ALIVE) return e;
+  /** The one free coface of σ (degree k) with a nonzero block, as a position in cob[k]'s transpose. */
+  const freeCofacePosition = (k: number, s: number): number => {
+    const ptr = X.cob[k].colPtr;
+    const cells = coCell[k];
+    for (let p = ptr[s]; p < ptr[s + 1]; p++) {
+      const w = cells[p];
+      if (w >= 0 && state[w] === ALIVE) return p;
     }
     return -1;
   };
 
-  /** Pair entry e of cob[k] (σ in degree k, τ in degree k+1) if its block allows. */
-  const tryPair = (k: number, e: number, kind: number): boolean => {
+  /** Pair entry e of cob[k] (σ in degree k, τ the global cell t in degree k+1) if its block allows. */
+  const tryPair = (k: number, e: number, t: number, kind: number): boolean => {
     const cob = X.cob[k];
     const s = offset[k] + cob.col[e];
-    const t = offset[k + 1] + rowOf[k][e];
     const inv = acceptable(k, cob.block[e], s, t);
     if (!inv) return false;
     const i = pairCount[k]++;
@@ -230,7 +249,7 @@ export function matchCells<E>(X: BasedComplex<E>, options: MatchOptions): Matchi
     if (tag === LOST_FACE || force) {
       if (k > 0 && freeFaces[g] === 1) {
         const e = freeFaceEntry(k, c);
-        if (e >= 0 && tryPair(k - 1, e, 0)) return true;
+        if (e >= 0 && tryPair(k - 1, e, g, 0)) return true;
       }
       if (freeFaces[g] === 0 && k + 1 < degrees) {
         // g is free-face-less: a coface whose only free face is g pairs with it.
@@ -238,13 +257,13 @@ export function matchCells<E>(X: BasedComplex<E>, options: MatchOptions): Matchi
         const cells = coCell[k];
         for (let p = cob.colPtr[c]; p < cob.colPtr[c + 1]; p++) {
           const w = cells[p];
-          if (w >= 0 && state[w] === ALIVE && freeFaces[w] === 1 && tryPair(k, cob.colEntry[p], 0)) return true;
+          if (w >= 0 && state[w] === ALIVE && freeFaces[w] === 1 && tryPair(k, cob.colEntry[p], w, 0)) return true;
         }
       }
     }
     if (k + 1 < degrees && freeCofaces[g] === 1) {
-      const e = freeCofaceEntry(k, c);
-      if (e >= 0 && tryPair(k, e, 1)) return true;
+      const p = freeCofacePosition(k, c);
+      if (p >= 0 && tryPair(k, X.cob[k].colEntry[p], coCell[k][p], 1)) return true;
     }
     if (force) {
       makeCritical(g);
