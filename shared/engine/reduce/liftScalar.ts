@@ -30,9 +30,13 @@ export function liftScalar(X: BasedComplex<number>, mt: Matching, k: number): Mo
   const solvePos = new Float64Array(nb);
   const solveNeg = new Float64Array(nb);
   const scalar = new Uint8Array(nb);
+  let allScalar = true;
   for (let b = 0; b < nb; b++) {
     const M = X.blocks[b];
-    if (M.scalar === undefined) continue;
+    if (M.scalar === undefined) {
+      allScalar = false;
+      continue;
+    }
     const s = M.scalar;
     scalar[b] = 1;
     pos[b] = s;
@@ -47,8 +51,9 @@ export function liftScalar(X: BasedComplex<number>, mt: Matching, k: number): Mo
   for (let t = 0; t + 1 < rowPtr.length; t++) {
     const w = rowPtr[t + 1] - rowPtr[t];
     if (w > widest) widest = w;
-    for (let e = rowPtr[t]; e < rowPtr[t + 1]; e++) if (block[e] >= 0 && !scalar[block[e]]) return undefined;
   }
+  // Blocks are shared by id: only a complex holding some non-scalar block needs its entries checked.
+  if (!allScalar) for (let e = 0; e < block.length; e++) if (block[e] >= 0 && !scalar[block[e]]) return undefined;
   // A row's products are summed before one reduction: they must stay exact.
   if (p > 0 && (p >= 2 ** 26 || p * p * widest >= 2 ** 53)) return undefined;
 
@@ -87,6 +92,27 @@ export function liftScalar(X: BasedComplex<number>, mt: Matching, k: number): Mo
         acc += (sign[e] < 0 ? neg[b] : pos[b]) * x[col[e]];
       }
       x[to] = p > 0 ? reduceMod(reduceMod(acc, p, invP) * f, p, invP) : acc * f;
+      return;
+    }
+    if (m === 2) {
+      // Two columns (a torus's two independent loops, say): kept in registers.
+      let a0 = 0;
+      let a1 = 0;
+      for (let e = rowPtr[t]; e < end; e++) {
+        const b = block[e];
+        if (b < 0 || e === pivot) continue;
+        const c = sign[e] < 0 ? neg[b] : pos[b];
+        const from = 2 * col[e];
+        a0 += c * x[from];
+        a1 += c * x[from + 1];
+      }
+      if (p > 0) {
+        x[to] = reduceMod(reduceMod(a0, p, invP) * f, p, invP);
+        x[to + 1] = reduceMod(reduceMod(a1, p, invP) * f, p, invP);
+      } else {
+        x[to] = a0 * f;
+        x[to + 1] = a1 * f;
+      }
       return;
     }
     r.fill(0);

@@ -193,16 +193,15 @@ export function matchCells<E>(X: BasedComplex<E>, options: MatchOptions): Matchi
     pairSigma[k][i] = s - offset[k];
     pairTau[k][i] = t - offset[k + 1];
     pairKind[k][i] = kind;
-    remove(s);
-    remove(t);
+    remove(s, k);
+    remove(t, k + 1);
     if (inv.minPivot < smallestPivot) smallestPivot = inv.minPivot;
     pairs++;
     return true;
   };
 
   /** Update the free counts of g's free neighbours once g stops being free. */
-  const release = (g: number) => {
-    const k = degreeOf[g];
+  const release = (g: number, k: number) => {
     const c = g - offset[k];
     if (k > 0) {
       const cob = X.cob[k - 1];
@@ -228,18 +227,18 @@ export function matchCells<E>(X: BasedComplex<E>, options: MatchOptions): Matchi
     }
   };
 
-  const remove = (g: number) => {
+  const remove = (g: number, k: number) => {
     state[g] = GONE;
-    release(g);
+    release(g, k);
   };
 
   let criticalCount = 0;
-  const makeCritical = (g: number) => {
+  const makeCritical = (g: number, k: number) => {
     criticalCount++;
     state[g] = CRITICAL;
     eventCell[events] = g;
     eventPair[events++] = -1;
-    release(g);
+    release(g, k);
   };
 
   /** Try every pairing open to g; true when g left the free cells. */
@@ -266,7 +265,7 @@ export function matchCells<E>(X: BasedComplex<E>, options: MatchOptions): Matchi
       if (p >= 0 && tryPair(k, X.cob[k].colEntry[p], coCell[k][p], 1)) return true;
     }
     if (force) {
-      makeCritical(g);
+      makeCritical(g, k);
       return true;
     }
     if (tag === LOST_FACE && freeFaces[g] === 0) {
