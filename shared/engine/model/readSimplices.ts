@@ -96,12 +96,13 @@ export function readScannedSimplices(scanned: ScannedSimplices, problems: Proble
     from = to;
   }
   if (problems.any) return undefined;
-  const vertexIds = collectScannedIds(ids, maxId);
-  const dense = denseIndexer(vertexIds);
+  const { vertexIds, rank } = collectScannedIds(ids, maxId);
+  const dense = rank ? (id: number) => rank[id] : denseIndexer(vertexIds);
   if (top === 2 && counts[0] === 0 && counts[1] === 0) {
     // Triangles only (the usual large surface): renumber in place, no second copy.
     const out = ids;
-    for (let j = 0; j < out.length; j++) out[j] = dense(out[j]);
+    if (rank) for (let j = 0; j < out.length; j++) out[j] = rank[out[j]];
+    else for (let j = 0; j < out.length; j++) out[j] = dense(out[j]);
     for (let off = 0; off < out.length; off += 3) sortSmall(out, off, 3);
     return buildComplex([new Int32Array(0), new Int32Array(0), out], vertexIds);
   }
@@ -121,25 +122,30 @@ export function readScannedSimplices(scanned: ScannedSimplices, problems: Proble
   return buildComplex(listed, vertexIds);
 }
 
-function collectScannedIds(ids: Int32Array, maxId: number): Float64Array {
+/**
+ * The distinct ids, increasing, and, when ids are compact, the dense index
+ * of every id as a table (the presence table turned into ranks in place).
+ */
+function collectScannedIds(ids: Int32Array, maxId: number): { vertexIds: Float64Array; rank?: Int32Array } {
   if (maxId <= 4 * ids.length + 1_000_000) {
-    const seen = new Uint8Array(maxId + 1);
+    const rank = new Int32Array(maxId + 1);
+    for (let j = 0; j < ids.length; j++) rank[ids[j]] = 1;
     let n = 0;
-    for (let j = 0; j < ids.length; j++) {
-      if (seen[ids[j]] === 0) {
-        seen[ids[j]] = 1;
-        n++;
-      }
-    }
-    const out = new Float64Array(n);
+    for (let v = 0; v <= maxId; v++) if (rank[v]) n++;
+    const vertexIds = new Float64Array(n);
     let w = 0;
-    for (let v = 0; v <= maxId; v++) if (seen[v]) out[w++] = v;
-    return out;
+    for (let v = 0; v <= maxId; v++) {
+      if (rank[v]) {
+        vertexIds[w] = v;
+        rank[v] = w++;
+      } else rank[v] = -1;
+    }
+    return { vertexIds, rank };
   }
   const all = Float64Array.from(ids).sort();
   let unique = 0;
   for (let i = 0; i < all.length; i++) if (i === 0 || all[i] !== all[i - 1]) all[unique++] = all[i];
-  return all.slice(0, unique);
+  return { vertexIds: all.slice(0, unique) };
 }
 
 /** The distinct vertex ids, increasing; a presence table when ids are compact, else a sort. */

@@ -141,12 +141,22 @@ function scanList(text: string, start: number): { simplices: ScannedSimplices; e
   if (text.charCodeAt(i) !== OPEN) return undefined;
   i = skipSpace(text, i + 1);
   if (text.charCodeAt(i) === CLOSE) return { simplices: { ids: new Int32Array(0), ends: new Int32Array(0), count: 0 }, end: i + 1 };
+  // Spaces are looked for only where the expected character is missing:
+  // generated files rarely have any, and the scan is most of a large read.
   for (;;) {
-    if (text.charCodeAt(i) !== OPEN) return undefined;
-    i = skipSpace(text, i + 1);
+    let c = text.charCodeAt(i);
+    if (c !== OPEN) {
+      i = skipSpace(text, i);
+      if (text.charCodeAt(i) !== OPEN) return undefined;
+    }
+    i++;
     for (;;) {
-      let c = text.charCodeAt(i);
-      if (c < ZERO || c > NINE) return undefined;
+      c = text.charCodeAt(i);
+      if (c < ZERO || c > NINE) {
+        i = skipSpace(text, i);
+        c = text.charCodeAt(i);
+        if (c < ZERO || c > NINE) return undefined;
+      }
       let v = c - ZERO;
       i++;
       c = text.charCodeAt(i);
@@ -159,12 +169,15 @@ function scanList(text: string, start: number): { simplices: ScannedSimplices; e
       }
       if (w === ids.length) ids = grow(ids);
       ids[w++] = v;
-      if (isSpace(c)) {
-        i = skipSpace(text, i);
-        c = text.charCodeAt(i);
-      }
       if (c === COMMA) {
-        i = skipSpace(text, i + 1);
+        i++;
+        continue;
+      }
+      if (c === CLOSE) break;
+      i = skipSpace(text, i);
+      c = text.charCodeAt(i);
+      if (c === COMMA) {
+        i++;
         continue;
       }
       if (c === CLOSE) break;
@@ -172,10 +185,14 @@ function scanList(text: string, start: number): { simplices: ScannedSimplices; e
     }
     if (count === ends.length) ends = grow(ends);
     ends[count++] = w;
-    i = skipSpace(text, i + 1);
-    const c = text.charCodeAt(i);
+    i++;
+    c = text.charCodeAt(i);
+    if (c !== COMMA && c !== CLOSE) {
+      i = skipSpace(text, i);
+      c = text.charCodeAt(i);
+    }
     if (c === COMMA) {
-      i = skipSpace(text, i + 1);
+      i++;
       continue;
     }
     if (c === CLOSE) break;
