@@ -48,7 +48,8 @@ export function buildComplex(listed: Int32Array[], vertexIds: Float64Array): Sim
       continue;
     }
     const n = listed[k].length / (k + 1);
-    const fromAbove = k < top ? listed[k + 1].length : 0;
+    // A surface's edges are closed by bucketing below; this table holds only the listed ones.
+    const fromAbove = k < top && !(k === 1 && top === 2) ? listed[k + 1].length : 0;
     simplices.push(new SimplexTable(k + 1, n + fromAbove));
   }
   for (let k = top; k >= 1; k--) {
