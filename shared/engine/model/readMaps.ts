@@ -49,18 +49,23 @@ export function readMaps<E>(
     }
     return id;
   };
-  const restriction: Int32Array[] = [new Int32Array(0)];
-  const explicit: Uint8Array[] = [new Uint8Array(0)];
-  for (let k = 1; k <= complex.dimension; k++) {
-    restriction.push(new Int32Array(complex.faces[k].length).fill(DEFAULT));
-    explicit.push(new Uint8Array(complex.faces[k].length));
-  }
-
   const entries = raw?.entries;
   if (entries !== undefined && !Array.isArray(entries)) {
     problems.add('maps.entries', 'must be a list of {"face", "coface", "matrix" | "scalar"}');
     return undefined;
   }
+  const uniform = uniformDim(dims);
+  // No entries and one stalk dimension (a constant sheaf): every map is the default block, written once.
+  const onlyDefault = uniform >= 0 && (entries === undefined || entries.length === 0);
+  const initial = !onlyDefault ? DEFAULT : def === 'zero' || uniform === 0 ? -1 : identity(uniform);
+  const restriction: Int32Array[] = [new Int32Array(0)];
+  const explicit: Uint8Array[] = [new Uint8Array(0)];
+  for (let k = 1; k <= complex.dimension; k++) {
+    restriction.push(new Int32Array(complex.faces[k].length).fill(initial));
+    explicit.push(new Uint8Array(complex.faces[k].length));
+  }
+  if (onlyDefault) return { restriction, maps, explicit };
+
   (entries ?? []).forEach((item: unknown, i: number) => {
     if (problems.full) return;
     const where = `maps.entries[${i}]`;
@@ -114,7 +119,6 @@ export function readMaps<E>(
   });
   if (problems.any) return undefined;
 
-  const uniform = uniformDim(dims);
   for (let k = 1; k <= complex.dimension; k++) {
     const r = restriction[k];
     const faces = complex.faces[k];
