@@ -65,7 +65,6 @@ const MAX_BASIS_VALUES = 2_000_000;
 
 interface Loaded {
   key: string;
-  json: Record<string, unknown>;
   sheaf: Sheaf<unknown>;
 }
 
@@ -91,10 +90,10 @@ export function createComputeService(db: GluefieldDb): ComputeService {
     const key = `${modelId}@${row.version}`;
     if (cache?.key === key) return cache;
     const text = await loadModelText(db, modelId);
-    const json = JSON.parse(text) as Record<string, unknown>;
-    const read = readModel(json);
+    // Only the sheaf is kept: a parsed copy of a large file would hold the worker's heap for nothing.
+    const read = readModelText(text);
     if (!read.sheaf) throw new Error(read.problems.map((p) => `${p.where}: ${p.message}`).join('; '));
-    cache = { key, json, sheaf: read.sheaf };
+    cache = { key, sheaf: read.sheaf };
     return cache;
   };
 
