@@ -9,6 +9,12 @@ export const GONE = 2;
 /** Queue tags: a cell that lost a face (coreduction candidate) or a coface (reduction candidate). */
 const LOST_FACE = 0;
 const LOST_COFACE = 1;
+/**
+ * The free counts of a cell that has left the free cells: far above any
+ * count, so decrements from its neighbours never make it look movable and
+ * the hot loops need not read its state.
+ */
+const NOT_FREE = 1 << 30;
 
 export interface MatchOptions {
   /**
@@ -114,6 +120,13 @@ export function matchCells<E>(X: BasedComplex<E>, options: MatchOptions): Matchi
     }
   }
 
+  for (let g = 0; g < total; g++) {
+    if (state[g] !== ALIVE) {
+      freeFaces[g] = NOT_FREE;
+      freeCofaces[g] = NOT_FREE;
+    }
+  }
+
   // Indexed by block id: the simplicial case shares a handful of blocks, a split complex has one per entry.
   const inverses: (Inverse<E> | null | undefined)[] = new Array(X.blocks.length);
   const inverseOf = (blockId: number): Inverse<E> | null => {
@@ -207,11 +220,9 @@ export function matchCells<E>(X: BasedComplex<E>, options: MatchOptions): Matchi
       const cob = X.cob[k - 1];
       const base = offset[k - 1];
       for (let e = cob.rowPtr[c]; e < cob.rowPtr[c + 1]; e++) {
-        const a = base + cob.col[e];
-        if (cob.block[e] >= 0 && state[a] === ALIVE) {
-          // Only a cell left with one free coface has a new move (a reduction pair).
-          if (--freeCofaces[a] === 1) push(a, LOST_COFACE);
-        }
+        // Only a cell left with one free coface has a new move (a reduction pair).
+        // A cell no longer free holds a count far above 1, so no state check is needed.
+        if (cob.block[e] >= 0 && --freeCofaces[base + cob.col[e]] === 1) push(base + cob.col[e], LOST_COFACE);
       }
     }
     if (k + 1 < degrees) {
@@ -219,16 +230,16 @@ export function matchCells<E>(X: BasedComplex<E>, options: MatchOptions): Matchi
       const cells = coCell[k];
       for (let p = ptr[c]; p < ptr[c + 1]; p++) {
         const w = cells[p];
-        if (w >= 0 && state[w] === ALIVE) {
-          // Moves open up at one free face (a coreduction pair) or none (defer, or a coface pair).
-          if (--freeFaces[w] <= 1) push(w, LOST_FACE);
-        }
+        // Moves open up at one free face (a coreduction pair) or none (defer, or a coface pair).
+        if (w >= 0 && --freeFaces[w] <= 1) push(w, LOST_FACE);
       }
     }
   };
 
   const remove = (g: number, k: number) => {
     state[g] = GONE;
+    freeFaces[g] = NOT_FREE;
+    freeCofaces[g] = NOT_FREE;
     release(g, k);
   };
 
@@ -236,6 +247,8 @@ export function matchCells<E>(X: BasedComplex<E>, options: MatchOptions): Matchi
   const makeCritical = (g: number, k: number) => {
     criticalCount++;
     state[g] = CRITICAL;
+    freeFaces[g] = NOT_FREE;
+    freeCofaces[g] = NOT_FREE;
     eventCell[events] = g;
     eventPair[events++] = -1;
     release(g, k);
