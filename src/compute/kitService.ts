@@ -56,6 +56,10 @@ export interface LevelNetSettings {
   /** A listed standard key, or 'custom' with cMm. */
   standard: string;
   cMm?: number;
+  /** Critical value of the standardised residual test; 3.29 when absent. */
+  critical?: number;
+  /** A-priori σ0, mm per √km; the adjustment's own (a-posteriori) σ0 when absent. */
+  sigma0Mm?: number;
 }
 
 /** Representative cycles are found up to this many triangles; past it only the Betti numbers. */
@@ -85,7 +89,10 @@ export function createKitService(options: { meshCycleLimit?: number } = {}): Kit
         standard = levellingStandard(settings.standard);
         if (!standard) return { ok: false, problems: [{ where: 'tolerance', message: `unknown standard "${settings.standard}"` }] };
       }
-      const report = adjustLevellingNet(read.net, { standard });
+      const positive = (x: number | undefined) => x === undefined || (x > 0 && Number.isFinite(x));
+      if (!positive(settings.critical)) return { ok: false, problems: [{ where: 'residual test', message: `critical value ${settings.critical} must be a positive number` }] };
+      if (!positive(settings.sigma0Mm)) return { ok: false, problems: [{ where: 'residual test', message: `a-priori σ0 = ${settings.sigma0Mm} mm must be a positive number (leave it empty to use the a-posteriori σ0)` }] };
+      const report = adjustLevellingNet(read.net, { standard, critical: settings.critical, sigma0Mm: settings.sigma0Mm });
       const net = read.net;
       const index = new Map(net.stations.map((s, i) => [s.id, i]));
       const edges = Int32Array.from(net.lines.flatMap((l) => [index.get(l.from)!, index.get(l.to)!]));

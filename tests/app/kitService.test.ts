@@ -6,8 +6,8 @@ const demo = (name: string) => readFileSync(new URL(`../../shared/kits/demo/${na
 const kits = createKitService();
 
 describe('the kit methods of the compute service', () => {
-  test('the invented ridge-line net: five loops, two over second order class II, the cross link RL-04 → RL-07 flagged, an automatic layout', async () => {
-    const out = await kits.levelNet('stations.csv', demo('ridge-line-stations.csv'), 'lines.csv', demo('ridge-line-lines.csv'), { standard: 'second-II' });
+  test('the invented ridge-line net: five loops, two over second order class II, the cross link RL-04 → RL-07 flagged with an a-priori σ0, an automatic layout', async () => {
+    const out = await kits.levelNet('stations.csv', demo('ridge-line-stations.csv'), 'lines.csv', demo('ridge-line-lines.csv'), { standard: 'second-II', sigma0Mm: 3 });
     expect(out.ok).toBe(true);
     if (!out.ok) return;
     expect(out.result.report.loops).toHaveLength(5);
@@ -24,6 +24,14 @@ describe('the kit methods of the compute service', () => {
     expect(loose.ok && loose.result.report.standard.c_mm).toBe(40);
     const bad = await kits.levelNet('s.csv', demo('ridge-line-stations.csv'), 'l.csv', demo('ridge-line-lines.csv'), { standard: 'custom', cMm: 0 });
     expect(bad.ok).toBe(false);
+  });
+
+  test('bad residual-test settings are located problems, not throws', async () => {
+    for (const settings of [{ standard: 'third', critical: 0 }, { standard: 'third', sigma0Mm: Number.NaN }]) {
+      const out = await kits.levelNet('s.csv', demo('ridge-line-stations.csv'), 'l.csv', demo('ridge-line-lines.csv'), settings);
+      expect(out.ok).toBe(false);
+      if (!out.ok) expect(out.problems[0].where).toBe('residual test');
+    }
   });
 
   test('stations with x, y columns are drawn at their positions (east to the right, north up)', async () => {

@@ -56,8 +56,25 @@ test('each kit goes from uploaded files to a drawn result and a JSON export; a b
   await page.getByTestId('lines-input').setInputFiles(demo('ridge-line-lines.csv'));
   await expect.poll(() => page.getByTestId('levelling-loop-count').textContent(), { timeout: 15_000 }).toBe('5');
   expect(await page.getByTestId('levelling-loops-failing').textContent()).toBe('2');
-  expect(await page.getByTestId('levelling-flagged').textContent()).toContain('RL-04 → RL-07');
   expect(await page.getByTestId('levelling-dof').textContent()).toBe('6');
+  // Standardised residuals with the a-posteriori σ0: |w| ≤ √6 < 3.29, said on screen; the blunder has the largest |w|.
+  expect(await page.getByTestId('levelling-test-note').textContent()).toContain('√dof = 2.45');
+  expect(await page.getByTestId('levelling-largest-w').textContent()).toContain('RL-04 → RL-07');
+  expect(await page.getByTestId('levelling-redundancy-sum').textContent()).toBe('6.000');
+  expect(await page.getByTestId('levelling-flagged').count()).toBe(0);
+  // An a-priori σ0 of 3 mm per √km (the demo's invented setting) flags the blunder alone.
+  await page.getByLabel('a-priori sigma0 in millimetres').fill('3');
+  await page.getByTestId('levelling-compute').click();
+  await expect.poll(() => page.getByTestId('levelling-flag-count').textContent(), { timeout: 15_000 }).toBe('1');
+  expect(await page.getByTestId('levelling-flagged').textContent()).toContain('RL-04 → RL-07 (line 13) w = -4.87');
+  expect(await page.getByTestId('kit-settings').textContent()).toContain('3.00 mm per √km (a-priori)');
+  // A critical value that is not a number is a located problem.
+  await page.getByLabel('critical value of w').fill('abc');
+  await page.getByTestId('levelling-compute').click();
+  await expect.poll(() => page.getByRole('alert').textContent(), { timeout: 15_000 }).toContain('residual test');
+  await page.getByLabel('critical value of w').fill('3.29');
+  await page.getByTestId('levelling-compute').click();
+  await expect.poll(() => page.getByTestId('levelling-flag-count').textContent(), { timeout: 15_000 }).toBe('1');
   expect(await page.getByTestId('kit-settings').textContent()).toContain('second order, class II');
   expect(await page.getByRole('complementary', { name: 'Cautions' }).textContent()).toContain('Defer to licensed engineers');
   await expect.poll(() => drawn(page, 'levelling-sketch')).toBe(true);
