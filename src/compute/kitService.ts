@@ -3,7 +3,7 @@
  * readers (located problems, never a throw), run the kit, and add what the
  * pictures need (positions, edges) so the page draws without re-parsing.
  */
-import type { Problem } from '../../shared/engine';
+import type { FieldSpec, Problem } from '../../shared/engine';
 import { detectFormat, importAny } from '../../shared/import';
 import {
   adjustLevellingNet,
@@ -62,6 +62,13 @@ export interface LevelNetSettings {
   sigma0Mm?: number;
 }
 
+/** The coefficient fields the mesh kit offers: GF(2) (the default) or the rationals, where orientability shows in b₂. */
+export type MeshField = 'prime:2' | 'rational';
+
+export interface MeshSettings {
+  field?: MeshField;
+}
+
 /** Representative cycles are found up to this many triangles; past it only the Betti numbers. */
 export const MESH_CYCLE_LIMIT = 200_000;
 /** At most this many edges are sent back for the picture. */
@@ -70,7 +77,7 @@ const MESH_DRAW_EDGES = 60_000;
 export interface KitService {
   levelNet(stationsName: string, stationsText: string, linesName: string, linesText: string, settings: LevelNetSettings): Promise<KitOutcome<LevelNetResult>>;
   frameCheck(jointsName: string, jointsText: string, barsName: string, barsText: string): Promise<KitOutcome<FrameResult>>;
-  meshTopology(fileName: string, data: string | Blob, onProgress?: ProgressSink): Promise<KitOutcome<MeshResult>>;
+  meshTopology(fileName: string, data: string | Blob, onProgress?: ProgressSink, settings?: MeshSettings): Promise<KitOutcome<MeshResult>>;
 }
 
 /** `meshCycleLimit` overrides {@link MESH_CYCLE_LIMIT} (tests). */
@@ -124,13 +131,15 @@ export function createKitService(options: { meshCycleLimit?: number } = {}): Kit
       };
     },
 
-    async meshTopology(fileName, data, onProgress) {
+    async meshTopology(fileName, data, onProgress, settings = {}) {
+      const fieldKey = settings.field ?? 'prime:2';
+      if (fieldKey !== 'prime:2' && fieldKey !== 'rational') return { ok: false, problems: [{ where: 'coefficients', message: `field "${String(fieldKey)}" is not prime:2 or rational` }] };
       onProgress?.({ phase: 'read', fraction: 0 });
       const text = typeof data === 'string' ? data : await data.text();
       const format = detectFormat(fileName, text.slice(0, 4096));
       if (format !== 'obj' && format !== 'off') return { ok: false, problems: [{ where: fileName, message: 'the mesh kit reads OBJ or OFF meshes' }] };
       onProgress?.({ phase: 'parse', fraction: 0.1 });
-      const field = { kind: 'prime', p: 2 } as const;
+      const field: FieldSpec = fieldKey === 'rational' ? { kind: 'rational' } : { kind: 'prime', p: 2 };
       const imported = importAny(fileName, text, { field });
       if ('problems' in imported) return { ok: false, problems: imported.problems.map((p) => ({ where: p.where ? `${fileName} ${p.where}` : fileName, message: p.message })) };
       const model = imported.model;

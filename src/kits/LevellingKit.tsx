@@ -120,13 +120,14 @@ export function LevellingKit() {
         </div>
       </div>
       <KitStatus state={state} what="The levelling net" />
-      {state.status === 'done' && <LevellingResult result={state.result} inputs={[stations?.name ?? '', lines?.name ?? '']} />}
+      {state.status === 'done' && stations && lines && <LevellingResult result={state.result} files={[stations, lines]} />}
     </div>
   );
 }
 
-function LevellingResult({ result, inputs }: { result: LevelNetResult; inputs: string[] }) {
+function LevellingResult({ result, files }: { result: LevelNetResult; files: NamedText[] }) {
   const r = result.report;
+  const inputs = files.map((f) => f.name);
   const name = stem(inputs[1]);
   const failing = r.loops.filter((l) => !l.ok).length;
   const isFlagged = (x: { w: number | null }) => x.w !== null && Math.abs(x.w) > r.test.critical;
@@ -158,6 +159,14 @@ function LevellingResult({ result, inputs }: { result: LevelNetResult; inputs: s
       kitCaution={r.caution}
       onJson={() => download(`${name}-levelling.json`, JSON.stringify(r, null, 2), 'application/json')}
       onCsv={exportCsv}
+      save={{
+        kit: 'levelling',
+        name: `Levelling net: ${inputs[1]}`,
+        summary: `${result.stations.length} stations · ${result.lines.length} lines · dof ${r.dof} · ${failing} of ${r.loops.length} loops over tolerance · ${r.flagged.length} line${r.flagged.length === 1 ? '' : 's'} flagged`,
+        settings: { standard: r.standard.key, c_mm: r.standard.c_mm, critical: r.test.critical, sigma0_mm: r.test.sigma0_mm, sigma0_source: r.test.sigma0_source },
+        inputs: async () => files,
+        report: r,
+      }}
     >
       <div className="flex flex-wrap gap-2">
         <Figure label="stations" value={String(result.stations.length)} />

@@ -1,6 +1,6 @@
 import * as Comlink from 'comlink';
 import { useState } from 'react';
-import type { MeshResult } from '../compute/kitService';
+import type { MeshField, MeshResult } from '../compute/kitService';
 import type { Progress } from '../compute/computeService';
 import { Button } from '../ui/Button';
 import { ProgressBar } from '../ui/ProgressBar';
@@ -10,25 +10,42 @@ import { download, stem, toCsv } from './download';
 import { FilePick } from './FilePick';
 import { Figure, KitReport } from './KitReport';
 import { KitStatus } from './KitStatus';
+import { meshCaution } from './meshCaution';
 import { MeshSketch } from './MeshSketch';
 import { useKitRun } from './useKitRun';
 
-const MESH_CAUTION = 'Betti numbers are exact (computed over GF(2)); orientability is a combinatorial check of the triangles. Over GF(2) a closed piece always encloses one void, orientable or not.';
 
 /** Mesh topology: an OBJ or OFF mesh in; components, tunnels, voids, closed/orientable and representative cycles out. */
 export function MeshKit() {
-  const [file, setFile] = useState<{ name: string }>();
+  const [file, setFile] = useState<{ name: string; data: string | Blob }>();
   const [progress, setProgress] = useState<Progress>();
+  const [field, setField] = useState<MeshField>('prime:2');
   const { state, start } = useKitRun<MeshResult>();
-  const compute = (name: string, data: string | Blob) => {
-    setFile({ name });
+  const compute = (name: string, data: string | Blob, f: MeshField = field) => {
+    setFile({ name, data });
     setProgress(undefined);
-    start(() => engine().meshTopology(name, data, Comlink.proxy((p: Progress) => setProgress(p))));
+    start(() => engine().meshTopology(name, data, Comlink.proxy((p: Progress) => setProgress(p)), { field: f }));
   };
   return (
     <div className="space-y-4">
       <div className="no-print flex flex-wrap items-end gap-3">
         <FilePick label="Mesh (OBJ or OFF)" accept=".obj,.off" testId="mesh-input" file={file ? { name: file.name, text: '' } : undefined} onFile={(f) => compute(f.name, f)} />
+        <label className="flex flex-col gap-0.5 text-sm">
+          <span className="text-xs text-ink-soft">Coefficients</span>
+          <select
+            aria-label="Coefficients"
+            className="rounded border border-rule bg-sheet px-2 py-1"
+            value={field}
+            onChange={(e) => {
+              const f = e.target.value as MeshField;
+              setField(f);
+              if (file) compute(file.name, file.data, f);
+            }}
+          >
+            <option value="prime:2">GF(2): every closed piece encloses a void</option>
+            <option value="rational">rationals: a void only where the piece is orientable</option>
+          </select>
+        </label>
         <Button onClick={() => compute(DEMO.mesh.name, DEMO.mesh.text)}>Load the invented culvert ring</Button>
       </div>
       {state.status === 'running' && (
@@ -38,13 +55,14 @@ export function MeshKit() {
         </div>
       )}
       {state.status !== 'running' && <KitStatus state={state} what="The mesh" />}
-      {state.status === 'done' && <MeshResultView key={file?.name} result={state.result} input={file?.name ?? ''} />}
+      {state.status === 'done' && file && <MeshResultView key={file.name} result={state.result} file={file} />}
     </div>
   );
 }
 
-function MeshResultView({ result, input }: { result: MeshResult; input: string }) {
+function MeshResultView({ result, file }: { result: MeshResult; file: { name: string; data: string | Blob } }) {
   const r = result.report;
+  const input = file.name;
   const [chosen, setChosen] = useState(0);
   const cycle = r.cycles[chosen];
   const name = stem(input);
@@ -72,9 +90,17 @@ function MeshResultView({ result, input }: { result: MeshResult; input: string }
         ['coefficients', r.field],
         ['time', `${r.ms.total} ms (cohomology ${r.ms.cohomology} ms, cycles ${r.ms.cycles} ms)`],
       ]}
-      kitCaution={MESH_CAUTION}
+      kitCaution={meshCaution(r.field)}
       onJson={() => download(`${name}-mesh.json`, JSON.stringify(r), 'application/json')}
       onCsv={exportCsv}
+      save={{
+        kit: 'mesh',
+        name: `Mesh topology: ${input}`,
+        summary: `${r.triangles.toLocaleString('en')} triangles · Betti (${r.betti.join(', ')}) over ${r.field} · closed ${yesNo(r.closed)} · orientable ${yesNo(r.orientable)}`,
+        settings: { field: r.field },
+        inputs: async () => [{ name: input, text: typeof file.data === 'string' ? file.data : await file.data.text() }],
+        report: r,
+      }}
     >
       <div className="flex flex-wrap gap-2">
         <Figure label="Betti numbers b₀, b₁, b₂" value={`(${r.betti.join(', ')})`} testId="mesh-betti" />

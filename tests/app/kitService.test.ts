@@ -1,6 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, test } from 'vitest';
 import { createKitService, MESH_CYCLE_LIMIT } from '../../src/compute/kitService';
+import { kleinBottle, toObj } from '../kits/meshText';
 
 const demo = (name: string) => readFileSync(new URL(`../../shared/kits/demo/${name}`, import.meta.url), 'utf8');
 const kits = createKitService();
@@ -74,6 +75,20 @@ describe('the kit methods of the compute service', () => {
     expect(Array.from(r.positions).every((p) => p >= 0 && p <= 1)).toBe(true);
     expect(phases[0]).toBe('read');
     expect(MESH_CYCLE_LIMIT).toBeGreaterThan(r.report.triangles);
+  });
+
+  test('the Klein bottle: (1, 2, 1) over GF(2), (1, 1, 0) over the rationals, non-orientable either way (Hatcher 2002, check-values.md)', async () => {
+    const obj = toObj(36, kleinBottle(6));
+    const gf2 = await kits.meshTopology('klein.obj', obj, undefined, { field: 'prime:2' });
+    const q = await kits.meshTopology('klein.obj', obj, undefined, { field: 'rational' });
+    expect(gf2.ok && gf2.result.report).toMatchObject({ betti: [1, 2, 1], field: 'prime:2', closed: true, orientable: false });
+    expect(q.ok && q.result.report).toMatchObject({ betti: [1, 1, 0], field: 'rational', closed: true, orientable: false });
+    // The default stays GF(2).
+    const plain = await kits.meshTopology('klein.obj', obj);
+    expect(plain.ok && plain.result.report.betti).toEqual([1, 2, 1]);
+    const bad = await kits.meshTopology('klein.obj', obj, undefined, { field: 'prime:3' as never });
+    expect(bad.ok).toBe(false);
+    if (!bad.ok) expect(bad.problems[0]).toMatchObject({ where: 'coefficients', message: expect.stringContaining('prime:3') });
   });
 
   test('a file that is not a mesh is refused with a message', async () => {

@@ -146,3 +146,75 @@ test('each kit goes from uploaded files to a drawn result and a JSON export; a b
   expect(errors).toEqual([]);
   await context.close();
 });
+
+test('a kit result saved into a project is listed there with its inputs, engine version and time, and survives a reload', async () => {
+  const { page, context, errors } = await newPage(browser);
+  await page.goto(inject('appUrl'));
+  await page.getByRole('link', { name: /Demo:/ }).waitFor();
+  await page.getByRole('link', { name: 'Kits', exact: true }).click();
+  await page.getByRole('navigation', { name: 'Kits' }).getByRole('link', { name: 'Levelling net' }).click();
+  await page.getByRole('button', { name: 'Load the invented ridge-line demo' }).click();
+  await expect.poll(() => page.getByTestId('levelling-flag-count').textContent(), { timeout: 15_000 }).toBe('1');
+  expect(await page.getByLabel('Project to keep the result in').locator('option:checked').textContent()).toMatch(/^Demo:/);
+  const before = Date.now();
+  await page.getByTestId('kit-save-button').click();
+  await expect.poll(() => page.getByTestId('kit-saved').textContent(), { timeout: 10_000 }).toMatch(/Saved to Demo:/);
+  // The saved copy is the one in the project, not this screen: open it from there.
+  await page.getByTestId('kit-saved').getByRole('link').click();
+  await page.waitForURL(/\/p\/[^/]+$/);
+  const entry = page.getByTestId('kit-shelf').getByRole('link', { name: /Levelling net: ridge-line-lines\.csv/ });
+  await entry.waitFor();
+  expect(await entry.textContent()).toContain('engine 0.1.0');
+  await page.reload();
+  await entry.click();
+  await page.waitForURL(/\/p\/[^/]+\/k\/[^/]+$/);
+  const summary = await page.getByTestId('saved-kit-summary').textContent();
+  expect(summary).toContain('12 stations · 16 lines · dof 6 · 2 of 5 loops over tolerance · 1 line flagged');
+  const provenance = (await page.getByTestId('saved-kit-provenance').textContent())!;
+  expect(provenance).toContain('Gluefield engine 0.1.0');
+  expect(provenance).toContain('ridge-line-stations.csv');
+  expect(provenance).toContain('ridge-line-lines.csv');
+  expect(provenance).toContain('a-priori');
+  expect(await page.getByTestId('saved-kit-headline').textContent()).toContain('RL-04 → RL-07 (w = -4.87)');
+  expect(await page.getByTestId('kit-caution').textContent()).toContain('local survey regulations');
+  expect(await page.getByRole('complementary', { name: 'Cautions' }).textContent()).toContain('Defer to licensed engineers');
+  // The report kept is the whole report, exported as it was saved.
+  const [download] = await Promise.all([page.waitForEvent('download'), page.getByTestId('saved-kit-export').click()]);
+  const saved = JSON.parse(readFileSync(await download.path(), 'utf8')) as { flagged: { from: string }[]; test: { sigma0_mm: number } };
+  expect(saved.flagged.map((f) => f.from)).toEqual(['RL-04']);
+  expect(saved.test.sigma0_mm).toBe(3);
+  // Saved when we saved it: the store's stamp is shown in local time.
+  const stampText = await page.evaluate(() => document.querySelector('[data-testid="saved-kit-provenance"] dd:nth-of-type(2)')?.textContent ?? '');
+  expect(Math.abs(new Date(stampText).getTime() - before)).toBeLessThan(120_000);
+  await screenshot(page, 'kits-saved-in-project');
+  expect(errors).toEqual([]);
+  await context.close();
+});
+
+test('the mesh kit offers the rationals: a Klein bottle is (1, 2, 1) over GF(2) and (1, 1, 0) over the rationals (Hatcher 2002)', async () => {
+  const { page, context, errors } = await newPage(browser);
+  await page.goto(`${inject('appUrl')}/kits/mesh`);
+  // Klein bottle: a 6 × 6 grid, sides j glued straight, sides i with the flip (6, j) ~ (0, 6 − j).
+  const n = 6;
+  const v = (i: number, j: number) => (i === n ? ((n - (j % n)) % n) : i * n + (j % n)) + 1;
+  const lines: string[] = [];
+  for (let k = 0; k < n * n; k++) lines.push(`v ${k % n} ${Math.floor(k / n)} ${(k * 7) % 5}`);
+  for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) lines.push(`f ${v(i, j)} ${v(i + 1, j)} ${v(i + 1, j + 1)}`, `f ${v(i, j)} ${v(i + 1, j + 1)} ${v(i, j + 1)}`);
+  await page.getByTestId('mesh-input').setInputFiles(tempFile('klein.obj', lines.join('\n') + '\n'));
+  await expect.poll(() => page.getByTestId('mesh-betti').textContent(), { timeout: 20_000 }).toBe('(1, 2, 1)');
+  expect(await page.getByTestId('mesh-orientable').textContent()).toBe('no');
+  expect(await page.getByTestId('kit-caution').textContent()).toContain('GF(2)');
+  await page.getByLabel('Coefficients').selectOption('rational');
+  await expect.poll(() => page.getByTestId('mesh-betti').textContent(), { timeout: 20_000 }).toBe('(1, 1, 0)');
+  expect(await page.getByTestId('mesh-orientable').textContent()).toBe('no');
+  expect(await page.getByTestId('kit-settings').textContent()).toContain('rational');
+  expect(await page.getByTestId('kit-caution').textContent()).toContain('non-orientable one has b₂ = 0');
+  // The culvert ring is orientable: over the rationals its void stays (1, 2, 1).
+  await page.getByRole('button', { name: 'Load the invented culvert ring' }).click();
+  await expect.poll(() => page.getByTestId('kit-settings').textContent(), { timeout: 20_000 }).toContain('rational');
+  await expect.poll(() => page.getByTestId('mesh-betti').textContent(), { timeout: 20_000 }).toBe('(1, 2, 1)');
+  expect(await page.getByTestId('mesh-orientable').textContent()).toBe('yes');
+  await screenshot(page, 'kits-mesh-rational');
+  expect(errors).toEqual([]);
+  await context.close();
+});
