@@ -48,6 +48,8 @@ export interface MeshResult {
   vertexIds: Int32Array;
   /** Dense vertex index pairs of the drawn edges (all, or a sample for very large meshes). */
   edges: Int32Array;
+  /** The picture takes the edges of every `drawStride`-th cell of the file (1: all of them). */
+  drawStride: number;
   /** Cycles were skipped because the mesh is too large. */
   cyclesSkipped: string | null;
 }
@@ -236,5 +238,5 @@ function meshPicture(simplices: number[][], vertices: { id: number; x?: number; 
   for (const [id, i] of ids) vertexIds[i] = id;
   const e = Int32Array.from(edges);
   const positions = positioned ? Float32Array.from(fitUnit(points)) : spectralLayout(n, e);
-  return { positions, vertexIds, edges: e };
+  return { positions, vertexIds, edges: e, drawStride: stride };
 }

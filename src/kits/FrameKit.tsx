@@ -97,7 +97,7 @@ function FrameResultView({ result, files }: { result: FrameResult; files: NamedT
         name: `Frame check: ${inputs[1]}`,
         summary: `${r.joints} joints · ${r.bars} bars · m = ${r.mechanisms}, s = ${r.selfStresses} · ${r.classification.summary}`,
         settings: { dimension: r.dimension, arithmetic: 'floating point' },
-        inputs: async () => files,
+        inputs: files.map((f) => ({ name: f.name, data: f.text })),
         report: r,
       }}
     >

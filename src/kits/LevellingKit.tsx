@@ -164,7 +164,7 @@ function LevellingResult({ result, files }: { result: LevelNetResult; files: Nam
         name: `Levelling net: ${inputs[1]}`,
         summary: `${result.stations.length} stations · ${result.lines.length} lines · dof ${r.dof} · ${failing} of ${r.loops.length} loops over tolerance · ${r.flagged.length} line${r.flagged.length === 1 ? '' : 's'} flagged`,
         settings: { standard: r.standard.key, c_mm: r.standard.c_mm, critical: r.test.critical, sigma0_mm: r.test.sigma0_mm, sigma0_source: r.test.sigma0_source },
-        inputs: async () => files,
+        inputs: files.map((f) => ({ name: f.name, data: f.text })),
         report: r,
       }}
     >

@@ -1,10 +1,9 @@
-import * as Comlink from 'comlink';
-import { useState } from 'react';
+import { useRef, useState } from 'react';
 import type { MeshField, MeshResult } from '../compute/kitService';
 import type { Progress } from '../compute/computeService';
 import { Button } from '../ui/Button';
 import { ProgressBar } from '../ui/ProgressBar';
-import { engine } from '../workers/engineClient';
+import { meshThroughWorker } from '../workers/engineClient';
 import { DEMO } from './demoFiles';
 import { download, stem, toCsv } from './download';
 import { FilePick } from './FilePick';
@@ -21,10 +20,17 @@ export function MeshKit() {
   const [progress, setProgress] = useState<Progress>();
   const [field, setField] = useState<MeshField>('prime:2');
   const { state, start } = useKitRun<MeshResult>();
+  const cancelRef = useRef<() => void>(undefined);
   const compute = (name: string, data: string | Blob, f: MeshField = field) => {
+    // A new file supersedes a computation still running: stop it rather than queue behind it.
+    if (state.status === 'running') cancelRef.current?.();
     setFile({ name, data });
     setProgress(undefined);
-    start(() => engine().meshTopology(name, data, Comlink.proxy((p: Progress) => setProgress(p)), { field: f }));
+    start(() => {
+      const handle = meshThroughWorker(name, data, { field: f }, (p: Progress) => setProgress(p));
+      cancelRef.current = handle.cancel;
+      return handle.result;
+    });
   };
   return (
     <div className="space-y-4">
@@ -52,12 +58,20 @@ export function MeshKit() {
         <div className="max-w-md space-y-1 text-sm text-ink-soft" data-testid="mesh-progress">
           <p>Computing in the engine worker{progress ? `: ${progress.phase}` : '…'} — large meshes take a while; the page stays usable.</p>
           <ProgressBar fraction={progress?.fraction ?? 0} label="mesh topology progress" />
+          <Button onClick={() => cancelRef.current?.()} data-testid="mesh-cancel">
+            Cancel
+          </Button>
         </div>
       )}
       {state.status !== 'running' && <KitStatus state={state} what="The mesh" />}
       {state.status === 'done' && file && <MeshResultView key={file.name} result={state.result} file={file} />}
     </div>
   );
+}
+
+function ordinal(n: number): string {
+  const teen = n % 100 >= 11 && n % 100 <= 13;
+  return `${n}${teen ? 'th' : (['th', 'st', 'nd', 'rd'][n % 10] ?? 'th')}`;
 }
 
 function MeshResultView({ result, file }: { result: MeshResult; file: { name: string; data: string | Blob } }) {
@@ -98,7 +112,7 @@ function MeshResultView({ result, file }: { result: MeshResult; file: { name: st
         name: `Mesh topology: ${input}`,
         summary: `${r.triangles.toLocaleString('en')} triangles · Betti (${r.betti.join(', ')}) over ${r.field} · closed ${yesNo(r.closed)} · orientable ${yesNo(r.orientable)}`,
         settings: { field: r.field },
-        inputs: async () => [{ name: input, text: typeof file.data === 'string' ? file.data : await file.data.text() }],
+        inputs: [{ name: input, data: file.data }],
         report: r,
       }}
     >
@@ -136,7 +150,13 @@ function MeshResultView({ result, file }: { result: MeshResult; file: { name: st
         )}
         <MeshSketch result={result} cycle={cycle} />
         <figcaption className="text-xs text-ink-soft">
-          Oblique projection{result.edges.length / 2 < r.edges ? ` (${(result.edges.length / 2).toLocaleString('en')} of ${r.edges.toLocaleString('en')} edges drawn)` : ''}
+          Oblique projection
+          {result.edges.length / 2 < r.edges && (
+            <span data-testid="mesh-draw-note">
+              {' '}
+              — a sample: {(result.edges.length / 2).toLocaleString('en')} of {r.edges.toLocaleString('en')} edges drawn ({result.drawStride > 1 ? `the edges of every ${ordinal(result.drawStride)} cell of the file` : 'the first ones met'}), so the picture stays quick; every figure above counts the whole mesh
+            </span>
+          )}
           {cycle ? <> · <span className="text-odds">the highlighted cycle</span> represents one class of H{cycle.degree === 1 ? '₁' : '₂'}</> : ''}
         </figcaption>
       </figure>

@@ -2,9 +2,9 @@ import { useQuery, useQueryClient } from '@tanstack/react-query';
 import { useEffect, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { appDb } from '../app/db';
-import { listProjects, saveKitResult, type KitKind } from '../store';
+import { listProjects, type KitKind } from '../store';
+import { engine } from '../workers/engineClient';
 import { Button } from '../ui/Button';
-import type { NamedText } from './demoFiles';
 
 /** What a kit hands over to be kept in a project. */
 export interface KitSave {
@@ -12,8 +12,8 @@ export interface KitSave {
   name: string;
   summary: string;
   settings: Record<string, unknown>;
-  /** Read lazily: a large mesh's text is only read when someone saves it. */
-  inputs(): Promise<NamedText[]>;
+  /** The files as text, or as the picked Blob (a large mesh is then read in the worker, not here). */
+  inputs: { name: string; data: string | Blob }[];
   report: unknown;
 }
 
@@ -33,7 +33,7 @@ export function SaveToProject({ save }: { save: KitSave }) {
     if (!project) return;
     setState({ status: 'saving' });
     try {
-      await saveKitResult(appDb(), { projectId: project.id, kit: save.kit, name: save.name, summary: save.summary, settings: save.settings, inputs: await save.inputs(), report: save.report });
+      await engine().saveKitResult({ projectId: project.id, kit: save.kit, name: save.name, summary: save.summary, settings: save.settings, inputs: save.inputs, report: save.report });
       await qc.invalidateQueries({ queryKey: ['kitResults', project.id] });
       await qc.invalidateQueries({ queryKey: ['projects'] });
       setState({ status: 'saved', projectId: project.id, projectName: project.name });

@@ -72,6 +72,7 @@ describe('the kit methods of the compute service', () => {
     expect(r.report.cycles).toHaveLength(3);
     expect(r.cyclesSkipped).toBeNull();
     expect(r.edges.length / 2).toBe(r.report.edges);
+    expect(r.drawStride).toBe(1);
     expect(Array.from(r.positions).every((p) => p >= 0 && p <= 1)).toBe(true);
     expect(phases[0]).toBe('read');
     expect(MESH_CYCLE_LIMIT).toBeGreaterThan(r.report.triangles);

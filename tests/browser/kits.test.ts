@@ -141,7 +141,19 @@ test('each kit goes from uploaded files to a drawn result and a JSON export; a b
   await expect.poll(() => page.getByTestId('mesh-cycles-skipped').textContent(), { timeout: 30_000 }).toContain('this mesh has 217,800');
   expect(await page.getByTestId('mesh-betti').textContent()).toBe('(1, 2, 1)');
   expect((await seenTestIds(page))['mesh-progress']).toBe(true);
+  // Not every edge is drawn at this size, and the picture says so.
+  expect(await page.getByTestId('mesh-draw-note').textContent()).toMatch(/a sample: [\d,]+ of 326,700 edges drawn \(the edges of every 11th cell of the file\)/);
   await screenshot(page, 'kits-mesh-large');
+
+  // Cancel: the same mesh again, stopped while it computes; the next computation starts a fresh worker.
+  await page.getByTestId('mesh-input').setInputFiles(tempFile('big-torus-again.obj', torusObj(330, 330)));
+  await page.getByTestId('mesh-cancel').click();
+  await expect.poll(() => page.getByTestId('kit-cancelled').count(), { timeout: 10_000 }).toBe(1);
+  expect(await page.getByTestId('mesh-progress').count()).toBe(0);
+  expect(await page.getByTestId('mesh-betti').count()).toBe(0);
+  await page.getByRole('button', { name: 'Load the invented culvert ring' }).click();
+  await expect.poll(() => page.getByTestId('mesh-betti').textContent(), { timeout: 20_000 }).toBe('(1, 2, 1)');
+  expect(await page.getByTestId('kit-cancelled').count()).toBe(0);
 
   expect(errors).toEqual([]);
   await context.close();
