@@ -4,6 +4,7 @@
  * Each case runs in a child process (its own heap and peak RSS).
  */
 import { execFileSync } from 'node:child_process';
+import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import type { CaseSpec } from './benchCase';
 
@@ -67,6 +68,27 @@ for (const c of cases) {
   process.stderr.write(`done: ${c.name}\n`);
 }
 
+// The mesh kit on 10^6 triangles in headless Chromium, against the same kit in Node in the same process run.
+interface MeshBrowser {
+  triangles: number;
+  nodeMs: number;
+  browserMs: number;
+  kitMsInWorker: number | null;
+  ratio: number;
+  longestTaskMs: number;
+  peakMB: number;
+  idleMB: number;
+  betti: string;
+  cancelMs: number | null;
+  saveMs: number;
+}
+let meshBrowser: MeshBrowser | undefined;
+if (!quick && existsSync(process.env.CHROMIUM_PATH ?? '/usr/bin/chromium')) {
+  const out = execFileSync(process.execPath, ['--import', 'tsx', `${here}browserMesh.ts`, '--json'], { encoding: 'utf8', maxBuffer: 1 << 26, stdio: ['ignore', 'pipe', 'ignore'] });
+  meshBrowser = JSON.parse(out.trim().split('\n').pop() as string) as MeshBrowser;
+  process.stderr.write('done: mesh kit 10^6 triangles in the browser\n');
+}
+
 const sum = (v: number[]) => v.reduce((a, b) => a + b, 0);
 const lines: string[] = [];
 lines.push('| case | cells | critical cells | rounds | parse ms | build | reduce | solve | Morse total ms | direct ms | direct / Morse | Morse / parse | peak MB | critical dims (block only → split) |');
@@ -83,6 +105,13 @@ for (const r of rows) {
   );
 }
 console.log(lines.join('\n'));
+if (meshBrowser) {
+  const m = meshBrowser;
+  console.log('');
+  console.log('| case | triangles | Node ms (import + kit) | browser ms (file → Betti on screen) | kit in the worker ms | browser / Node | longest main-thread task ms | Chromium peak MB (idle) | save to project ms | cancel ms |');
+  console.log('|---|---|---|---|---|---|---|---|---|---|');
+  console.log(`| mesh kit torus 10^6, GF(2), no cycles | ${m.triangles} | ${ms(m.nodeMs)} | ${ms(m.browserMs)} | ${m.kitMsInWorker === null ? '?' : ms(m.kitMsInWorker)} | ${m.ratio.toFixed(2)}× | ${m.longestTaskMs} | ${m.peakMB} (${m.idleMB}) | ${ms(m.saveMs)} | ${m.cancelMs ?? '—'} |`);
+}
 
 // The targets this machine is held to.
 const checks: [string, boolean][] = [];
@@ -109,6 +138,12 @@ for (const r of rows.filter((x) => x.blockOnly)) {
 }
 for (const r of rows) {
   if (r.direct?.ok) checks.push([`${r.name}: Morse dims = direct dims`, r.direct.report!.dims.join() === r.morse.report!.dims.join()]);
+}
+if (meshBrowser) {
+  const m = meshBrowser;
+  checks.push([`mesh 10^6 in the browser: Betti ${m.betti} = (1, 2, 1)`, m.betti === '(1, 2, 1)']);
+  checks.push([`mesh 10^6 in the browser: longest main-thread task ${m.longestTaskMs} ms < 200 ms`, m.longestTaskMs < 200]);
+  checks.push([`mesh 10^6 in the browser: cancel stops it in ${m.cancelMs ?? '—'} ms < 2000 ms`, m.cancelMs !== null && m.cancelMs < 2000]);
 }
 console.log('');
 for (const [text, ok] of checks) console.log(`${ok ? 'PASS' : 'FAIL'}  ${text}`);
