@@ -10,6 +10,11 @@ import type { CaseSpec } from './benchCase';
 
 const here = fileURLToPath(new URL('.', import.meta.url));
 const quick = process.argv.includes('--quick');
+// `--only TEXT`: just the cases whose name contains TEXT (the browser mesh case is "mesh kit torus 10^6").
+const onlyAt = process.argv.indexOf('--only');
+const only = onlyAt >= 0 ? process.argv[onlyAt + 1] : undefined;
+const wanted = (name: string) => only === undefined || name.includes(only);
+const MESH_CASE = 'mesh kit torus 10^6, GF(2), no cycles';
 const DIRECT_CAP_MS = quick ? 20_000 : 90_000;
 
 interface Row {
@@ -59,7 +64,7 @@ cases.push({ name: 'rank-deficient 10^4 rational', kind: 'quotient', cells: 1e4,
 cases.push({ name: 'rank-deficient 10^5 prime', kind: 'quotient', cells: 1e5, dim: 0, field: prime, direct: true });
 
 const rows: Row[] = [];
-for (const c of cases) {
+for (const c of cases.filter((x) => wanted(x.name))) {
   const base = { kind: c.kind, cells: c.cells, dim: c.dim, field: c.field, capMs: DIRECT_CAP_MS };
   const morse = runCase({ ...base, method: 'morse' });
   const direct = c.direct ? runCase({ ...base, method: 'direct' }) : undefined;
@@ -83,7 +88,7 @@ interface MeshBrowser {
   saveMs: number;
 }
 let meshBrowser: MeshBrowser | undefined;
-if (!quick && existsSync(process.env.CHROMIUM_PATH ?? '/usr/bin/chromium')) {
+if (!quick && wanted(MESH_CASE) && existsSync(process.env.CHROMIUM_PATH ?? '/usr/bin/chromium')) {
   const out = execFileSync(process.execPath, ['--import', 'tsx', `${here}browserMesh.ts`, '--json'], { encoding: 'utf8', maxBuffer: 1 << 26, stdio: ['ignore', 'pipe', 'ignore'] });
   meshBrowser = JSON.parse(out.trim().split('\n').pop() as string) as MeshBrowser;
   process.stderr.write('done: mesh kit 10^6 triangles in the browser\n');
@@ -104,13 +109,13 @@ for (const r of rows) {
     `| ${r.name} | ${sum(m.cells)} | ${m.morse!.criticalCells.join(', ')} | ${m.morse!.rounds} | ${ms(r.morse.parseMs)} | ${ms(m.ms.build)} | ${ms(m.ms.reduce)} | ${ms(m.ms.solve)} | ${ms(total)} | ${directText} | ${ratio} | ${(total / r.morse.parseMs).toFixed(1)}× | ${r.morse.peakMB.toFixed(0)} | ${blockDims.join(', ')} → ${m.morse!.criticalCochainDims.join(', ')} |`,
   );
 }
-console.log(lines.join('\n'));
+if (rows.length) console.log(lines.join('\n'));
 if (meshBrowser) {
   const m = meshBrowser;
   console.log('');
   console.log('| case | triangles | Node ms (import + kit) | browser ms (file → Betti on screen) | kit in the worker ms | browser / Node | longest main-thread task ms | Chromium peak MB (idle) | save to project ms | cancel ms |');
   console.log('|---|---|---|---|---|---|---|---|---|---|');
-  console.log(`| mesh kit torus 10^6, GF(2), no cycles | ${m.triangles} | ${ms(m.nodeMs)} | ${ms(m.browserMs)} | ${m.kitMsInWorker === null ? '?' : ms(m.kitMsInWorker)} | ${m.ratio.toFixed(2)}× | ${m.longestTaskMs} | ${m.peakMB} (${m.idleMB}) | ${ms(m.saveMs)} | ${m.cancelMs ?? '—'} |`);
+  console.log(`| ${MESH_CASE} | ${m.triangles} | ${ms(m.nodeMs)} | ${ms(m.browserMs)} | ${m.kitMsInWorker === null ? '?' : ms(m.kitMsInWorker)} | ${m.ratio.toFixed(2)}× | ${m.longestTaskMs} | ${m.peakMB} (${m.idleMB}) | ${ms(m.saveMs)} | ${m.cancelMs ?? '—'} |`);
 }
 
 // The targets this machine is held to.
