@@ -4,7 +4,7 @@ import type { FrameReport, LevellingReport, MeshReport } from '../../shared/kits
 import { appDb } from '../app/db';
 import { meshCaution } from '../kits/meshCaution';
 import { download, stem } from '../kits/download';
-import { deleteKitResult, loadKitResult, type OpenedKitResult } from '../store';
+import { deleteKitResult, loadKitInput, loadKitResult, type OpenedKitResult } from '../store';
 import { Button } from '../ui/Button';
 import { Cautions } from '../ui/Cautions';
 import { KIT_NAMES } from './KitShelf';
@@ -56,8 +56,8 @@ export function SavedKitResult({ projectId, id }: { projectId: string; id: strin
         <Button onClick={() => download(`${stem(r.inputs[r.inputs.length - 1].name)}-${r.kit}.json`, JSON.stringify(r.report, null, 2), 'application/json')} data-testid="saved-kit-export">
           Export the report (JSON)
         </Button>
-        {r.inputs.map((f) => (
-          <Button key={f.name} onClick={() => download(f.name, f.text, 'text/plain')}>
+        {r.inputs.map((f, i) => (
+          <Button key={f.name} onClick={() => void loadKitInput(appDb(), r.id, i).then((text) => download(f.name, text, 'text/plain'))}>
             Download {f.name}
           </Button>
         ))}

@@ -43,4 +43,4 @@ export { saveRun, listRuns, getRun, deleteRun, type NewRun } from './runs';
 export { getSetting, setSetting } from './settings';
 export { saveReadings, listReadings, loadReadingsText, deleteReadings, type NewReadings } from './readings';
 export { seedDemoIfEmpty, DEMO_PROJECT_NAME, DEMO_SEEDED_KEY, type Summarize } from './seedDemo';
-export { saveKitResult, listKitResults, loadKitResult, deleteKitResult, KIT_KINDS, type NewKitResult, type OpenedKitResult } from './kitResults';
+export { saveKitResult, listKitResults, loadKitResult, loadKitInput, deleteKitResult, KIT_KINDS, type NewKitResult, type OpenedKitResult } from './kitResults';

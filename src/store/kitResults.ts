@@ -21,10 +21,10 @@ export interface NewKitResult {
   report: unknown;
 }
 
-/** A saved kit result with its report and input texts unpacked. */
+/** A saved kit result with its report unpacked; input texts are unpacked only on request ({@link loadKitInput}), as a mesh can be tens of megabytes. */
 export interface OpenedKitResult extends Omit<KitResultRow, 'packedReport' | 'inputs'> {
   report: unknown;
-  inputs: { name: string; bytes: number; hash: string; text: string }[];
+  inputs: { name: string; bytes: number; hash: string }[];
 }
 
 /**
@@ -74,14 +74,22 @@ export async function listKitResults(db: GluefieldDb, projectId: string): Promis
   return rows.sort((a, b) => b.createdAt - a.createdAt).map(({ packedReport: _packed, ...rest }) => rest);
 }
 
-/** One saved kit result with its report and inputs unpacked. Throws StoreError `not-found`. */
+/** One saved kit result with its report unpacked. Throws StoreError `not-found`. */
 export async function loadKitResult(db: GluefieldDb, id: string): Promise<OpenedKitResult> {
   checkId(id, 'kit result');
   const row = await db.kitResults.get(id);
   if (!row) throw new StoreError('not-found', `no kit result ${id}`);
   const { packedReport, inputs, ...rest } = row;
-  const [reportText, ...texts] = await Promise.all([unpackText(packedReport), ...inputs.map((f) => unpackText(f.packed))]);
-  return { ...rest, report: JSON.parse(reportText), inputs: inputs.map((f, i) => ({ name: f.name, bytes: f.bytes, hash: f.hash, text: texts[i] })) };
+  return { ...rest, report: JSON.parse(await unpackText(packedReport)), inputs: inputs.map((f) => ({ name: f.name, bytes: f.bytes, hash: f.hash })) };
+}
+
+/** The text of input file `index` of a saved kit result. Throws StoreError `not-found`. */
+export async function loadKitInput(db: GluefieldDb, id: string, index: number): Promise<string> {
+  checkId(id, 'kit result');
+  const row = await db.kitResults.get(id);
+  const file = row?.inputs[index];
+  if (!file) throw new StoreError('not-found', `no input ${index} of kit result ${id}`);
+  return unpackText(file.packed);
 }
 
 /** Unknown ids are a no-op. */

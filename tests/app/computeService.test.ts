@@ -2,7 +2,7 @@ import 'fake-indexeddb/auto';
 import { describe, expect, test } from 'vitest';
 import { createComputeService } from '../../src/compute/computeService';
 import { ENGINE_VERSION } from '../../shared/engine';
-import { createProject, listKitResults, listModels, listRuns, loadKitResult, loadModelText, openDb } from '../../src/store';
+import { createProject, listKitResults, listModels, listRuns, loadKitInput, loadKitResult, loadModelText, openDb } from '../../src/store';
 import { constantTorus } from '../../bench/torusModel';
 
 let n = 0;
@@ -99,7 +99,8 @@ describe('the compute service (what the engine worker runs)', () => {
     const saved = await svc.saveKitResult({ projectId: project.id, kit: 'mesh', name: 'one triangle', summary: '1 triangle', settings: { field: 'prime:2' }, inputs: [{ name: 'tri.obj', data: new Blob([obj]) }], report: { betti: [1, 0, 0] } });
     expect(saved.engineVersion).toBe(ENGINE_VERSION);
     const opened = await loadKitResult(db, saved.id);
-    expect(opened.inputs).toMatchObject([{ name: 'tri.obj', text: obj, bytes: obj.length }]);
+    expect(opened.inputs).toMatchObject([{ name: 'tri.obj', bytes: obj.length }]);
+    expect(await loadKitInput(db, saved.id, 0)).toBe(obj);
     expect(opened.report).toEqual({ betti: [1, 0, 0] });
     expect((await listKitResults(db, project.id)).map((r) => r.createdAt)).toEqual([saved.createdAt]);
   });

@@ -195,6 +195,9 @@ test('a kit result saved into a project is listed there with its inputs, engine 
   const saved = JSON.parse(readFileSync(await download.path(), 'utf8')) as { flagged: { from: string }[]; test: { sigma0_mm: number } };
   expect(saved.flagged.map((f) => f.from)).toEqual(['RL-04']);
   expect(saved.test.sigma0_mm).toBe(3);
+  // And the input as it was read.
+  const [input] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Download ridge-line-lines.csv' }).click()]);
+  expect(readFileSync(await input.path(), 'utf8')).toBe(readFileSync(new URL('../../shared/kits/demo/ridge-line-lines.csv', import.meta.url), 'utf8'));
   // Saved when we saved it: the store's stamp is shown in local time.
   const stampText = await page.evaluate(() => document.querySelector('[data-testid="saved-kit-provenance"] dd:nth-of-type(2)')?.textContent ?? '');
   expect(Math.abs(new Date(stampText).getTime() - before)).toBeLessThan(120_000);

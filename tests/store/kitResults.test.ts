@@ -1,7 +1,7 @@
 import 'fake-indexeddb/auto';
 import { describe, expect, test } from 'vitest';
 import { ENGINE_VERSION } from '../../shared/engine';
-import { createProject, deleteKitResult, deleteProject, getProject, hashText, listKitResults, loadKitResult, openDb, saveKitResult, StoreError, type NewKitResult } from '../../src/store';
+import { createProject, deleteKitResult, deleteProject, getProject, hashText, listKitResults, loadKitInput, loadKitResult, openDb, saveKitResult, StoreError, type NewKitResult } from '../../src/store';
 
 let n = 0;
 const fresh = () => openDb(`kit-results-test-${n++}`);
@@ -34,11 +34,14 @@ describe('kit results saved into a project', () => {
     const opened = await loadKitResult(db, row.id);
     expect(opened).toMatchObject({ kit: 'levelling', name: 'ridge line, week 3', projectId: p.id, settings: { standard: 'third', critical: 3.29 } });
     expect(opened.report).toEqual({ heights: { A: 100, B: 101.5 }, dof: 0 });
-    expect(opened.inputs.map((f) => [f.name, f.text, f.bytes])).toEqual([
-      ['stations.csv', STATIONS, STATIONS.length],
-      ['lines.csv', LINES, LINES.length],
+    expect(opened.inputs.map((f) => [f.name, f.bytes])).toEqual([
+      ['stations.csv', STATIONS.length],
+      ['lines.csv', LINES.length],
     ]);
     expect(opened.inputs[1].hash).toBe(await hashText(LINES));
+    expect(await loadKitInput(db, row.id, 0)).toBe(STATIONS);
+    expect(await loadKitInput(db, row.id, 1)).toBe(LINES);
+    await expect(loadKitInput(db, row.id, 2)).rejects.toThrow(/no input 2/);
     // Saving marks the project changed, so the Desk lists it first.
     expect((await getProject(db, p.id))!.updatedAt).toBe(row.createdAt);
   });
