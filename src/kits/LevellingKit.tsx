@@ -174,7 +174,7 @@ function LevellingResult({ result, files }: { result: LevelNetResult; files: Nam
         <Figure label="loops" value={String(r.loops.length)} testId="levelling-loop-count" />
         <Figure label="loops over tolerance" value={String(failing)} tone={failing ? 'odds' : 'glued'} testId="levelling-loops-failing" />
         <Figure label="flagged lines" value={String(r.flagged.length)} tone={r.flagged.length ? 'odds' : 'glued'} testId="levelling-flag-count" />
-        <Figure label="σ0 (mm, 1 km)" value={r.sigma0 === null ? '— (dof 0)' : mm(r.sigma0)} testId="levelling-sigma0" />
+        <Figure label="a-posteriori σ0 (mm, 1 km)" value={r.sigma0 === null ? '— (dof 0)' : mm(r.sigma0)} testId="levelling-sigma0" />
         <Figure label="degrees of freedom" value={String(r.dof)} testId="levelling-dof" />
         <Figure label="Σ redundancy numbers" value={r.test.redundancy_sum.toFixed(3)} testId="levelling-redundancy-sum" />
         <Figure label="largest |w|" value={r.test.largest ? `${Math.abs(r.test.largest.w).toFixed(2)} (${r.test.largest.from} → ${r.test.largest.to})` : '—'} testId="levelling-largest-w" />
