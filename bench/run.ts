@@ -4,11 +4,17 @@
  * Each case runs in a child process (its own heap and peak RSS).
  */
 import { execFileSync } from 'node:child_process';
+import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import type { CaseSpec } from './benchCase';
 
 const here = fileURLToPath(new URL('.', import.meta.url));
 const quick = process.argv.includes('--quick');
+// `--only TEXT`: just the cases whose name contains TEXT (the browser mesh case is "mesh kit torus 10^6").
+const onlyAt = process.argv.indexOf('--only');
+const only = onlyAt >= 0 ? process.argv[onlyAt + 1] : undefined;
+const wanted = (name: string) => only === undefined || name.includes(only);
+const MESH_CASE = 'mesh kit torus 10^6, GF(2), no cycles';
 const DIRECT_CAP_MS = quick ? 20_000 : 90_000;
 
 interface Row {
@@ -58,13 +64,34 @@ cases.push({ name: 'rank-deficient 10^4 rational', kind: 'quotient', cells: 1e4,
 cases.push({ name: 'rank-deficient 10^5 prime', kind: 'quotient', cells: 1e5, dim: 0, field: prime, direct: true });
 
 const rows: Row[] = [];
-for (const c of cases) {
+for (const c of cases.filter((x) => wanted(x.name))) {
   const base = { kind: c.kind, cells: c.cells, dim: c.dim, field: c.field, capMs: DIRECT_CAP_MS };
   const morse = runCase({ ...base, method: 'morse' });
   const direct = c.direct ? runCase({ ...base, method: 'direct' }) : undefined;
   const blockOnly = c.kind === 'quotient' ? runCase({ ...base, method: 'morse', split: false }) : undefined;
   rows.push({ name: c.name, morse, direct, blockOnly });
   process.stderr.write(`done: ${c.name}\n`);
+}
+
+// The mesh kit on 10^6 triangles in headless Chromium, against the same kit in Node in the same process run.
+interface MeshBrowser {
+  triangles: number;
+  nodeMs: number;
+  browserMs: number;
+  kitMsInWorker: number | null;
+  ratio: number;
+  longestTaskMs: number;
+  peakMB: number;
+  idleMB: number;
+  betti: string;
+  cancelMs: number | null;
+  saveMs: number;
+}
+let meshBrowser: MeshBrowser | undefined;
+if (!quick && wanted(MESH_CASE) && existsSync(process.env.CHROMIUM_PATH ?? '/usr/bin/chromium')) {
+  const out = execFileSync(process.execPath, ['--import', 'tsx', `${here}browserMesh.ts`, '--json'], { encoding: 'utf8', maxBuffer: 1 << 26, stdio: ['ignore', 'pipe', 'ignore'] });
+  meshBrowser = JSON.parse(out.trim().split('\n').pop() as string) as MeshBrowser;
+  process.stderr.write('done: mesh kit 10^6 triangles in the browser\n');
 }
 
 const sum = (v: number[]) => v.reduce((a, b) => a + b, 0);
@@ -82,7 +109,14 @@ for (const r of rows) {
     `| ${r.name} | ${sum(m.cells)} | ${m.morse!.criticalCells.join(', ')} | ${m.morse!.rounds} | ${ms(r.morse.parseMs)} | ${ms(m.ms.build)} | ${ms(m.ms.reduce)} | ${ms(m.ms.solve)} | ${ms(total)} | ${directText} | ${ratio} | ${(total / r.morse.parseMs).toFixed(1)}× | ${r.morse.peakMB.toFixed(0)} | ${blockDims.join(', ')} → ${m.morse!.criticalCochainDims.join(', ')} |`,
   );
 }
-console.log(lines.join('\n'));
+if (rows.length) console.log(lines.join('\n'));
+if (meshBrowser) {
+  const m = meshBrowser;
+  console.log('');
+  console.log('| case | triangles | Node ms (import + kit) | browser ms (file → Betti on screen) | kit in the worker ms | browser / Node | longest main-thread task ms | Chromium peak MB (idle) | save to project ms | cancel ms |');
+  console.log('|---|---|---|---|---|---|---|---|---|---|');
+  console.log(`| ${MESH_CASE} | ${m.triangles} | ${ms(m.nodeMs)} | ${ms(m.browserMs)} | ${m.kitMsInWorker === null ? '?' : ms(m.kitMsInWorker)} | ${m.ratio.toFixed(2)}× | ${m.longestTaskMs} | ${m.peakMB} (${m.idleMB}) | ${ms(m.saveMs)} | ${m.cancelMs ?? '—'} |`);
+}
 
 // The targets this machine is held to.
 const checks: [string, boolean][] = [];
@@ -109,6 +143,12 @@ for (const r of rows.filter((x) => x.blockOnly)) {
 }
 for (const r of rows) {
   if (r.direct?.ok) checks.push([`${r.name}: Morse dims = direct dims`, r.direct.report!.dims.join() === r.morse.report!.dims.join()]);
+}
+if (meshBrowser) {
+  const m = meshBrowser;
+  checks.push([`mesh 10^6 in the browser: Betti ${m.betti} = (1, 2, 1)`, m.betti === '(1, 2, 1)']);
+  checks.push([`mesh 10^6 in the browser: longest main-thread task ${m.longestTaskMs} ms < 200 ms`, m.longestTaskMs < 200]);
+  checks.push([`mesh 10^6 in the browser: cancel stops it in ${m.cancelMs ?? '—'} ms < 2000 ms`, m.cancelMs !== null && m.cancelMs < 2000]);
 }
 console.log('');
 for (const [text, ok] of checks) console.log(`${ok ? 'PASS' : 'FAIL'}  ${text}`);

@@ -20,7 +20,7 @@ import { analyseMesh } from '../shared/kits/mesh';
 import { UsageError } from './UsageError';
 
 /** `level-net STATIONS.csv LINES.csv`: the adjustment report, or ModelError naming the first bad cell. */
-export function levelNetCommand(paths: [string, string], texts: [string, string], options: { standard?: string; cMm?: number }): unknown {
+export function levelNetCommand(paths: [string, string], texts: [string, string], options: { standard?: string; cMm?: number; critical?: number; sigma0Mm?: number }): unknown {
   const read = readLevellingCsv(texts[0], texts[1], { stations: paths[0], lines: paths[1] });
   if (!read.net) throw new ModelError(read.problems);
   let standard: LevellingStandard | undefined;
@@ -30,7 +30,7 @@ export function levelNetCommand(paths: [string, string], texts: [string, string]
     standard = levellingStandard(options.standard);
     if (!standard) throw new UsageError(`--standard: "${options.standard}" is not one of ${LEVELLING_STANDARDS.map((s) => s.key).join(', ')}`);
   }
-  return adjustLevellingNet(read.net, { standard });
+  return adjustLevellingNet(read.net, { standard, critical: options.critical, sigma0Mm: options.sigma0Mm });
 }
 
 /** `frame JOINTS.csv BARS.csv`: mechanisms and self-stresses. */

@@ -23,7 +23,7 @@ export const USAGE = `usage:
   gluefield check FILE [--field rational|real|prime:P]
   gluefield sections FILE --degree K [--method morse|direct] [--field rational|real|prime:P]
   gluefield readings FILE READINGS.json [--field rational|real|prime:P]
-  gluefield level-net STATIONS.csv LINES.csv [--standard first-II|second-I|second-II|third] [--c-mm C]
+  gluefield level-net STATIONS.csv LINES.csv [--standard first-II|second-I|second-II|third] [--c-mm C] [--critical W] [--sigma0-mm S]
   gluefield frame JOINTS.csv BARS.csv
   gluefield mesh FILE.obj|FILE.off [--field prime:2|rational] [--no-cycles]`;
 
@@ -48,6 +48,8 @@ interface Args {
   split: boolean;
   standard?: string;
   cMm?: number;
+  critical?: number;
+  sigma0Mm?: number;
   cycles: boolean;
 }
 
@@ -121,7 +123,7 @@ function kitCommand(args: Args, io: CliIo): unknown {
   const [a, b] = args.files;
   switch (args.command) {
     case 'level-net':
-      return levelNetCommand([a, b], [readText(io, a), readText(io, b)], { standard: args.standard, cMm: args.cMm });
+      return levelNetCommand([a, b], [readText(io, a), readText(io, b)], { standard: args.standard, cMm: args.cMm, critical: args.critical, sigma0Mm: args.sigma0Mm });
     case 'frame':
       return frameCommand([a, b], [readText(io, a), readText(io, b)]);
     case 'mesh':
@@ -164,6 +166,8 @@ function parseArgs(argv: string[]): Args {
   const files: string[] = [];
   let standard: string | undefined;
   let cMm: number | undefined;
+  let critical: number | undefined;
+  let sigma0Mm: number | undefined;
   let cycles = true;
   let method: Method = 'morse';
   let fieldText: string | undefined;
@@ -196,7 +200,9 @@ function parseArgs(argv: string[]): Args {
       const c = value();
       if (!/^\d*\.?\d+([eE][+-]?\d+)?$/.test(c) || !(Number(c) > 0)) throw new UsageError(`--c-mm: "${c}" is not a positive number of millimetres`);
       cMm = Number(c);
-    } else if (a === '--no-cycles') cycles = false;
+    } else if (a === '--critical') critical = positiveNumber(a, value(), 'a positive critical value of |w|');
+    else if (a === '--sigma0-mm') sigma0Mm = positiveNumber(a, value(), 'a positive number of millimetres per √km');
+    else if (a === '--no-cycles') cycles = false;
     else if (a.startsWith('--')) throw new UsageError(`unknown option ${a}`);
     else files.push(a);
   }
@@ -214,7 +220,12 @@ function parseArgs(argv: string[]): Args {
   } else if (tolerance !== undefined) {
     field = { kind: 'real', tolerance };
   }
-  return { command, file: files[0], files, method, field, degree, split, standard, cMm, cycles };
+  return { command, file: files[0], files, method, field, degree, split, standard, cMm, critical, sigma0Mm, cycles };
+}
+
+function positiveNumber(option: string, text: string, what: string): number {
+  if (!/^\d*\.?\d+([eE][+-]?\d+)?$/.test(text) || !(Number(text) > 0)) throw new UsageError(`${option}: "${text}" is not ${what}`);
+  return Number(text);
 }
 
 function readText(io: CliIo, file: string): string {

@@ -56,6 +56,7 @@ export function App() {
           <Route path="/" element={<Desk />} />
           <Route path="/p/:projectId" element={<BenchScreen />} />
           <Route path="/p/:projectId/m/:modelId" element={<BenchScreen />} />
+          <Route path="/p/:projectId/k/:kitResultId" element={<BenchScreen />} />
           <Route path="/kits/*" element={<KitsScreen />} />
           <Route path="/p/:projectId/conflicts" element={<ConflictsScreen />} />
           <Route path="/p/:projectId/crew" element={<CrewScreen />} />

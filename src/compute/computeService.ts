@@ -15,8 +15,8 @@ import {
 } from '../../shared/engine';
 import { detectFormat, importAny } from '../../shared/import';
 import { spectralLayout } from '../../shared/layout/spectralLayout';
-import type { GluefieldDb, ModelRow, RunRow, RunSettings, StoredBasis } from '../store';
-import { getModel, loadModelText, saveModelVersion, saveNewModel, saveRun } from '../store';
+import type { GluefieldDb, ModelRow, NewKitResult, RunRow, RunSettings, StoredBasis } from '../store';
+import { getModel, loadModelText, saveKitResult, saveModelVersion, saveNewModel, saveRun } from '../store';
 import { recordModelSaved, recordRunSaved } from '../sync/recordChange';
 import { createKitService, type KitService } from './kitService';
 
@@ -69,7 +69,15 @@ interface Loaded {
 }
 
 /** The model methods, and the trade kits (levelling net, frame check, mesh topology). */
+/** A kit result to keep, its input files as text or as the Blob the user picked (read in the worker). */
+export type KitResultToSave = Omit<NewKitResult, 'inputs'> & { inputs: { name: string; data: string | Blob }[] };
+
 export interface ComputeService extends KitService {
+  /**
+   * Keep a kit's inputs and report in a project. Packing a large mesh file
+   * takes seconds of gzip, which is why it happens here and not on the page.
+   */
+  saveKitResult(input: KitResultToSave): Promise<{ id: string; createdAt: number; engineVersion: string }>;
   importFile(projectId: string, fileName: string, data: string | Blob, onProgress?: ProgressSink): Promise<ImportOutcome>;
   replaceModel(modelId: string, fileName: string, data: string | Blob, source?: ModelRow['source']): Promise<ImportOutcome>;
   validateText(text: string): Promise<{ problems: Problem[]; summary?: ModelSummary }>;
@@ -113,6 +121,12 @@ export function createComputeService(db: GluefieldDb): ComputeService {
 
   return {
     ...createKitService(),
+
+    async saveKitResult(input) {
+      const inputs = await Promise.all(input.inputs.map(async (f) => ({ name: f.name, text: typeof f.data === 'string' ? f.data : await f.data.text() })));
+      const row = await saveKitResult(db, { ...input, inputs });
+      return { id: row.id, createdAt: row.createdAt, engineVersion: row.engineVersion };
+    },
 
     async importFile(projectId, fileName, data, onProgress) {
       const p = await prepare(fileName, data, onProgress);

@@ -3,7 +3,7 @@
  * readers (located problems, never a throw), run the kit, and add what the
  * pictures need (positions, edges) so the page draws without re-parsing.
  */
-import type { Problem } from '../../shared/engine';
+import type { FieldSpec, Problem } from '../../shared/engine';
 import { detectFormat, importAny } from '../../shared/import';
 import {
   adjustLevellingNet,
@@ -48,6 +48,8 @@ export interface MeshResult {
   vertexIds: Int32Array;
   /** Dense vertex index pairs of the drawn edges (all, or a sample for very large meshes). */
   edges: Int32Array;
+  /** The picture takes the edges of every `drawStride`-th cell of the file (1: all of them). */
+  drawStride: number;
   /** Cycles were skipped because the mesh is too large. */
   cyclesSkipped: string | null;
 }
@@ -56,6 +58,17 @@ export interface LevelNetSettings {
   /** A listed standard key, or 'custom' with cMm. */
   standard: string;
   cMm?: number;
+  /** Critical value of the standardised residual test; 3.29 when absent. */
+  critical?: number;
+  /** A-priori σ0, mm per √km; the adjustment's own (a-posteriori) σ0 when absent. */
+  sigma0Mm?: number;
+}
+
+/** The coefficient fields the mesh kit offers: GF(2) (the default) or the rationals, where orientability shows in b₂. */
+export type MeshField = 'prime:2' | 'rational';
+
+export interface MeshSettings {
+  field?: MeshField;
 }
 
 /** Representative cycles are found up to this many triangles; past it only the Betti numbers. */
@@ -66,7 +79,7 @@ const MESH_DRAW_EDGES = 60_000;
 export interface KitService {
   levelNet(stationsName: string, stationsText: string, linesName: string, linesText: string, settings: LevelNetSettings): Promise<KitOutcome<LevelNetResult>>;
   frameCheck(jointsName: string, jointsText: string, barsName: string, barsText: string): Promise<KitOutcome<FrameResult>>;
-  meshTopology(fileName: string, data: string | Blob, onProgress?: ProgressSink): Promise<KitOutcome<MeshResult>>;
+  meshTopology(fileName: string, data: string | Blob, onProgress?: ProgressSink, settings?: MeshSettings): Promise<KitOutcome<MeshResult>>;
 }
 
 /** `meshCycleLimit` overrides {@link MESH_CYCLE_LIMIT} (tests). */
@@ -85,7 +98,10 @@ export function createKitService(options: { meshCycleLimit?: number } = {}): Kit
         standard = levellingStandard(settings.standard);
         if (!standard) return { ok: false, problems: [{ where: 'tolerance', message: `unknown standard "${settings.standard}"` }] };
       }
-      const report = adjustLevellingNet(read.net, { standard });
+      const positive = (x: number | undefined) => x === undefined || (x > 0 && Number.isFinite(x));
+      if (!positive(settings.critical)) return { ok: false, problems: [{ where: 'residual test', message: `critical value ${settings.critical} must be a positive number` }] };
+      if (!positive(settings.sigma0Mm)) return { ok: false, problems: [{ where: 'residual test', message: `a-priori σ0 = ${settings.sigma0Mm} mm must be a positive number (leave it empty to use the a-posteriori σ0)` }] };
+      const report = adjustLevellingNet(read.net, { standard, critical: settings.critical, sigma0Mm: settings.sigma0Mm });
       const net = read.net;
       const index = new Map(net.stations.map((s, i) => [s.id, i]));
       const edges = Int32Array.from(net.lines.flatMap((l) => [index.get(l.from)!, index.get(l.to)!]));
@@ -117,13 +133,15 @@ export function createKitService(options: { meshCycleLimit?: number } = {}): Kit
       };
     },
 
-    async meshTopology(fileName, data, onProgress) {
+    async meshTopology(fileName, data, onProgress, settings = {}) {
+      const fieldKey = settings.field ?? 'prime:2';
+      if (fieldKey !== 'prime:2' && fieldKey !== 'rational') return { ok: false, problems: [{ where: 'coefficients', message: `field "${String(fieldKey)}" is not prime:2 or rational` }] };
       onProgress?.({ phase: 'read', fraction: 0 });
       const text = typeof data === 'string' ? data : await data.text();
       const format = detectFormat(fileName, text.slice(0, 4096));
       if (format !== 'obj' && format !== 'off') return { ok: false, problems: [{ where: fileName, message: 'the mesh kit reads OBJ or OFF meshes' }] };
       onProgress?.({ phase: 'parse', fraction: 0.1 });
-      const field = { kind: 'prime', p: 2 } as const;
+      const field: FieldSpec = fieldKey === 'rational' ? { kind: 'rational' } : { kind: 'prime', p: 2 };
       const imported = importAny(fileName, text, { field });
       if ('problems' in imported) return { ok: false, problems: imported.problems.map((p) => ({ where: p.where ? `${fileName} ${p.where}` : fileName, message: p.message })) };
       const model = imported.model;
@@ -220,5 +238,5 @@ function meshPicture(simplices: number[][], vertices: { id: number; x?: number; 
   for (const [id, i] of ids) vertexIds[i] = id;
   const e = Int32Array.from(edges);
   const positions = positioned ? Float32Array.from(fitUnit(points)) : spectralLayout(n, e);
-  return { positions, vertexIds, edges: e };
+  return { positions, vertexIds, edges: e, drawStride: stride };
 }

@@ -58,13 +58,14 @@ export function FrameKit() {
         </div>
       </div>
       <KitStatus state={state} what="The frame" />
-      {state.status === 'done' && <FrameResultView key={`${joints?.name}|${bars?.name}`} result={state.result} inputs={[joints?.name ?? '', bars?.name ?? '']} />}
+      {state.status === 'done' && joints && bars && <FrameResultView key={`${joints.name}|${bars.name}`} result={state.result} files={[joints, bars]} />}
     </div>
   );
 }
 
-function FrameResultView({ result, inputs }: { result: FrameResult; inputs: string[] }) {
+function FrameResultView({ result, files }: { result: FrameResult; files: NamedText[] }) {
   const r = result.report;
+  const inputs = files.map((f) => f.name);
   const [view, setView] = useState<FrameView>(r.selfStressStates.length ? { kind: 'selfStress', index: 0 } : r.mechanismModes.length ? { kind: 'mechanism', index: 0 } : { kind: 'none' });
   const name = stem(inputs[1]);
   const viewKey = view.kind === 'none' ? 'none' : `${view.kind}:${view.index}`;
@@ -91,6 +92,14 @@ function FrameResultView({ result, inputs }: { result: FrameResult; inputs: stri
       kitCaution={r.caution}
       onJson={() => download(`${name}-frame.json`, JSON.stringify(r, null, 2), 'application/json')}
       onCsv={exportCsv}
+      save={{
+        kit: 'frame',
+        name: `Frame check: ${inputs[1]}`,
+        summary: `${r.joints} joints · ${r.bars} bars · m = ${r.mechanisms}, s = ${r.selfStresses} · ${r.classification.summary}`,
+        settings: { dimension: r.dimension, arithmetic: 'floating point' },
+        inputs: files.map((f) => ({ name: f.name, data: f.text })),
+        report: r,
+      }}
     >
       <div className="flex flex-wrap gap-2">
         <Figure label="dims [H⁰, H¹]" value={`[${r.dims.join(', ')}]`} testId="frame-dims" />

@@ -1,6 +1,7 @@
 import type { ReactNode } from 'react';
 import { Button } from '../ui/Button';
 import { Cautions } from '../ui/Cautions';
+import { SaveToProject, type KitSave } from './SaveToProject';
 
 /**
  * The frame every kit result sits in: a report heading with the inputs and
@@ -14,6 +15,8 @@ export function KitReport(props: {
   kitCaution: string;
   onJson(): void;
   onCsv(): void;
+  /** Offer to keep the input and result in a project. */
+  save?: KitSave;
   children: ReactNode;
 }) {
   return (
@@ -44,6 +47,11 @@ export function KitReport(props: {
           </Button>
         </div>
       </header>
+      {props.save && (
+        <div className="no-print">
+          <SaveToProject save={props.save} />
+        </div>
+      )}
       {props.children}
       <p className="rounded border border-rule bg-sheet p-2 text-xs text-ink-soft" data-testid="kit-caution">
         {props.kitCaution}

@@ -19,3 +19,6 @@ export const DEMO = {
   barsExtra: { name: 'footbridge-bars-extra-diagonal.csv', text: footbridgeBarsExtra },
   mesh: { name: 'culvert-ring.obj', text: culvertRing },
 } satisfies Record<string, NamedText>;
+
+/** The a-priori σ0 (mm per √km) the ridge-line demo is tested with: invented, like its data. */
+export const DEMO_LEVELLING_SIGMA0_MM = '3';

@@ -1,8 +1,15 @@
 import { useCallback, useRef, useState } from 'react';
 import type { Problem } from '../../shared/engine';
 import type { KitOutcome } from '../compute/kitService';
+import { RunCancelled } from '../workers/engineClient';
 
-export type KitState<T> = { status: 'idle' } | { status: 'running' } | { status: 'done'; result: T } | { status: 'problems'; problems: Problem[] } | { status: 'failed'; message: string };
+export type KitState<T> =
+  | { status: 'idle' }
+  | { status: 'running' }
+  | { status: 'done'; result: T }
+  | { status: 'problems'; problems: Problem[] }
+  | { status: 'failed'; message: string }
+  | { status: 'cancelled' };
 
 /** Run one kit computation at a time; a later start supersedes an earlier one still in flight. */
 export function useKitRun<T>() {
@@ -18,7 +25,7 @@ export function useKitRun<T>() {
       },
       (err: unknown) => {
         if (mine !== generation.current) return;
-        setState({ status: 'failed', message: err instanceof Error ? err.message : String(err) });
+        setState(err instanceof RunCancelled ? { status: 'cancelled' } : { status: 'failed', message: err instanceof Error ? err.message : String(err) });
       },
     );
   }, []);

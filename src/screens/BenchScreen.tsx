@@ -5,8 +5,10 @@ import { appDb } from '../app/db';
 import { useHotkeys } from '../app/useHotkeys';
 import { CellLedger, type LedgerValues } from '../bench/CellLedger';
 import { Findings, type BasisChoice } from '../bench/Findings';
+import { KitShelf } from '../bench/KitShelf';
 import { ModelShelf } from '../bench/ModelShelf';
 import { RunHistory } from '../bench/RunHistory';
+import { SavedKitResult } from '../bench/SavedKitResult';
 import { Sketch, type SketchPaint } from '../bench/Sketch';
 import { SolvePanel } from '../bench/SolvePanel';
 import { useModel, useRuns, useSketch } from '../bench/useModelData';
@@ -23,7 +25,7 @@ const MapsEditor = lazy(() => import('../editor/MapsEditor').then((m) => ({ defa
 
 /** The bench: one project's models, the open model's views, and its runs. */
 export function BenchScreen() {
-  const { projectId = '', modelId } = useParams();
+  const { projectId = '', modelId, kitResultId } = useParams();
   const projects = useQuery({ queryKey: ['projects'], queryFn: () => listProjects(appDb()) });
   const project = projects.data?.find((p) => p.id === projectId);
   const model = useModel(modelId);
@@ -57,7 +59,12 @@ export function BenchScreen() {
 
   return (
     <div className="grid h-full grid-cols-[15rem_1fr_23rem]">
-      <ModelShelf projectId={projectId} modelId={modelId} />
+      <div className="flex min-h-0 flex-col">
+        <div className="min-h-0 flex-1">
+          <ModelShelf projectId={projectId} modelId={modelId} />
+        </div>
+        <KitShelf projectId={projectId} selected={kitResultId} />
+      </div>
       <section className="flex min-w-0 flex-col">
         <div className="no-print flex items-center gap-1 border-b border-rule bg-sheet px-3 py-1.5">
           <Link to="/" className="text-xs text-ink-faint hover:text-ink">
@@ -92,7 +99,8 @@ export function BenchScreen() {
           </div>
         </div>
         <div className="min-h-0 flex-1">
-          {!modelId && <EmptyBench />}
+          {kitResultId && <SavedKitResult key={kitResultId} projectId={projectId} id={kitResultId} />}
+          {!modelId && !kitResultId && <EmptyBench />}
           {modelId && !m && <p className="p-4 text-ink-soft">Opening the model…</p>}
           {m && tab === 'sketch' && (sketch.data ? <Sketch data={sketch.data} paint={paint} /> : <p className="p-4 text-ink-soft">Drawing…</p>)}
           {m && tab === 'ledger' && <CellLedger modelId={m.id} version={m.version} cells={m.cells} critical={run?.modelVersion === m.version ? run?.critical : undefined} values={ledgerValues} />}

@@ -7,14 +7,18 @@
  *   (the newest {@link MAX_TEXT_VERSIONS}), never one row per cell;
  * - `runs`: Reduce & solve results, with bases as typed arrays;
  * - `readings`: field data on a model's cells, one packed row per readings file;
- * - `settings`: small key–value preferences.
+ * - `settings`: small key–value preferences;
+ * - `kitResults`: a trade kit's input files and report saved into a project, packed.
  */
 import Dexie, { type Table } from 'dexie';
-import type { ModelRow, ModelTextRow, ProjectRow, ReadingsRow, RunRow, SettingRow } from './rows';
+import type { KitResultRow, ModelRow, ModelTextRow, ProjectRow, ReadingsRow, RunRow, SettingRow } from './rows';
 import type { OutboxRow, SyncLinkRow } from '../sync/rows';
 import { upgradeToV2 } from './upgradeToV2';
 
 export type {
+  KitInputRow,
+  KitKind,
+  KitResultRow,
   ModelRow,
   ModelSource,
   ModelTextRow,
@@ -65,6 +69,12 @@ export const SCHEMA_V4 = {
   syncLinks: 'projectId',
 } as const;
 
+/** Version 5: kit results saved into projects; a new table, so no row changes. */
+export const SCHEMA_V5 = {
+  ...SCHEMA_V4,
+  kitResults: 'id, projectId, createdAt',
+} as const;
+
 export class GluefieldDb extends Dexie {
   declare projects: Table<ProjectRow, string>;
   declare models: Table<ModelRow, string>;
@@ -74,6 +84,7 @@ export class GluefieldDb extends Dexie {
   declare readings: Table<ReadingsRow, string>;
   declare outbox: Table<OutboxRow, number>;
   declare syncLinks: Table<SyncLinkRow, string>;
+  declare kitResults: Table<KitResultRow, string>;
 
   constructor(name: string = DB_NAME) {
     super(name);
@@ -81,6 +92,7 @@ export class GluefieldDb extends Dexie {
     this.version(2).stores(SCHEMA_V2).upgrade(upgradeToV2);
     this.version(3).stores(SCHEMA_V3);
     this.version(4).stores(SCHEMA_V4);
+    this.version(5).stores(SCHEMA_V5);
   }
 }
 

@@ -5,8 +5,12 @@ export {
   SCHEMA_V2,
   SCHEMA_V3,
   SCHEMA_V4,
+  SCHEMA_V5,
   GluefieldDb,
   openDb,
+  type KitInputRow,
+  type KitKind,
+  type KitResultRow,
   type ModelRow,
   type ModelSource,
   type ModelTextRow,
@@ -39,3 +43,4 @@ export { saveRun, listRuns, getRun, deleteRun, type NewRun } from './runs';
 export { getSetting, setSetting } from './settings';
 export { saveReadings, listReadings, loadReadingsText, deleteReadings, type NewReadings } from './readings';
 export { seedDemoIfEmpty, DEMO_PROJECT_NAME, DEMO_SEEDED_KEY, type Summarize } from './seedDemo';
+export { saveKitResult, listKitResults, loadKitResult, loadKitInput, deleteKitResult, KIT_KINDS, type NewKitResult, type OpenedKitResult } from './kitResults';

@@ -34,10 +34,11 @@ export async function renameProject(db: GluefieldDb, id: string, name: string): 
   });
 }
 
-/** Delete a project with its models, their texts and their runs, all or nothing. Unknown ids are a no-op. */
+/** Delete a project with its models, their texts and their runs, and its saved kit results, all or nothing. Unknown ids are a no-op. */
 export async function deleteProject(db: GluefieldDb, id: string): Promise<void> {
   checkId(id, 'project');
-  await writeTx(db, [db.projects, db.models, db.modelTexts, db.runs, db.readings], async () => {
+  await writeTx(db, [db.projects, db.models, db.modelTexts, db.runs, db.readings, db.kitResults], async () => {
+    await db.kitResults.where('projectId').equals(id).delete();
     const modelIds = await db.models.where('projectId').equals(id).primaryKeys();
     await db.modelTexts.where('modelId').anyOf(modelIds).delete();
     await db.readings.where('projectId').equals(id).delete();

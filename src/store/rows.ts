@@ -103,3 +103,35 @@ export interface SettingRow {
   key: string;
   value: unknown;
 }
+
+/** Which trade kit produced a saved result. */
+export type KitKind = 'levelling' | 'frame' | 'mesh';
+
+/** One input file of a saved kit result, gzip-packed as given. */
+export interface KitInputRow {
+  name: string;
+  packed: Uint8Array;
+  /** UTF-8 length and SHA-256 (hex) of the text before packing. */
+  bytes: number;
+  hash: string;
+}
+
+/**
+ * A kit's input and result kept in a project: the files as they were read,
+ * the settings, and the report as JSON, gzip-packed, with where it came
+ * from (engine version and when).
+ */
+export interface KitResultRow {
+  id: string;
+  projectId: string;
+  kit: KitKind;
+  name: string;
+  /** One line the project's list shows (the kit's headline figures). */
+  summary: string;
+  settings: Record<string, unknown>;
+  inputs: KitInputRow[];
+  /** gzip of the report's JSON text */
+  packedReport: Uint8Array;
+  engineVersion: string;
+  createdAt: number;
+}

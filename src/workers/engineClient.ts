@@ -1,5 +1,6 @@
 import * as Comlink from 'comlink';
 import type { ComputeService, Progress, RunRecord } from '../compute/computeService';
+import type { KitOutcome, MeshResult, MeshSettings } from '../compute/kitService';
 import type { RunSettings } from '../store';
 
 type Remote = Comlink.Remote<ComputeService>;
@@ -52,6 +53,19 @@ export function startRun(modelId: string, settings: RunSettings, onProgress: (p:
   });
   const result = Promise.race([api.run(modelId, settings, Comlink.proxy(onProgress)), cancelled]);
   return { result, cancel };
+}
+
+/** A mesh kit computation that can be stopped the same way as a run: by terminating the worker. */
+export function meshThroughWorker(name: string, data: string | Blob, settings: MeshSettings, onProgress: (p: Progress) => void): { result: Promise<KitOutcome<MeshResult>>; cancel(): void } {
+  const api = engine();
+  let cancel!: () => void;
+  const cancelled = new Promise<never>((_, reject) => {
+    cancel = () => {
+      resetEngine();
+      reject(new RunCancelled());
+    };
+  });
+  return { result: Promise.race([api.meshTopology(name, data, Comlink.proxy(onProgress), settings), cancelled]), cancel };
 }
 
 /** Import through the worker with progress, so a large file never blocks the page. */

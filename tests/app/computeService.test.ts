@@ -1,7 +1,8 @@
 import 'fake-indexeddb/auto';
 import { describe, expect, test } from 'vitest';
 import { createComputeService } from '../../src/compute/computeService';
-import { createProject, listModels, listRuns, loadModelText, openDb } from '../../src/store';
+import { ENGINE_VERSION } from '../../shared/engine';
+import { createProject, listKitResults, listModels, listRuns, loadKitInput, loadKitResult, loadModelText, openDb } from '../../src/store';
 import { constantTorus } from '../../bench/torusModel';
 
 let n = 0;
@@ -88,5 +89,19 @@ describe('the compute service (what the engine worker runs)', () => {
     expect(sketch.positions.length).toBe(50);
     expect(sketch.edges.length).toBe(150);
     expect([...sketch.positions].every((x) => x >= 0 && x <= 1)).toBe(true);
+  });
+
+  test('keeps a kit result in a project, reading a picked Blob in the worker', async () => {
+    const db = fresh();
+    const svc = createComputeService(db);
+    const project = await createProject(db, 'Culvert');
+    const obj = 'v 0 0 0\nv 1 0 0\nv 0 1 0\nf 1 2 3\n';
+    const saved = await svc.saveKitResult({ projectId: project.id, kit: 'mesh', name: 'one triangle', summary: '1 triangle', settings: { field: 'prime:2' }, inputs: [{ name: 'tri.obj', data: new Blob([obj]) }], report: { betti: [1, 0, 0] } });
+    expect(saved.engineVersion).toBe(ENGINE_VERSION);
+    const opened = await loadKitResult(db, saved.id);
+    expect(opened.inputs).toMatchObject([{ name: 'tri.obj', bytes: obj.length }]);
+    expect(await loadKitInput(db, saved.id, 0)).toBe(obj);
+    expect(opened.report).toEqual({ betti: [1, 0, 0] });
+    expect((await listKitResults(db, project.id)).map((r) => r.createdAt)).toEqual([saved.createdAt]);
   });
 });

@@ -1,13 +1,14 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, test } from 'vitest';
 import { createKitService, MESH_CYCLE_LIMIT } from '../../src/compute/kitService';
+import { kleinBottle, toObj } from '../kits/meshText';
 
 const demo = (name: string) => readFileSync(new URL(`../../shared/kits/demo/${name}`, import.meta.url), 'utf8');
 const kits = createKitService();
 
 describe('the kit methods of the compute service', () => {
-  test('the invented ridge-line net: five loops, two over second order class II, the cross link RL-04 → RL-07 flagged, an automatic layout', async () => {
-    const out = await kits.levelNet('stations.csv', demo('ridge-line-stations.csv'), 'lines.csv', demo('ridge-line-lines.csv'), { standard: 'second-II' });
+  test('the invented ridge-line net: five loops, two over second order class II, the cross link RL-04 → RL-07 flagged with an a-priori σ0, an automatic layout', async () => {
+    const out = await kits.levelNet('stations.csv', demo('ridge-line-stations.csv'), 'lines.csv', demo('ridge-line-lines.csv'), { standard: 'second-II', sigma0Mm: 3 });
     expect(out.ok).toBe(true);
     if (!out.ok) return;
     expect(out.result.report.loops).toHaveLength(5);
@@ -24,6 +25,14 @@ describe('the kit methods of the compute service', () => {
     expect(loose.ok && loose.result.report.standard.c_mm).toBe(40);
     const bad = await kits.levelNet('s.csv', demo('ridge-line-stations.csv'), 'l.csv', demo('ridge-line-lines.csv'), { standard: 'custom', cMm: 0 });
     expect(bad.ok).toBe(false);
+  });
+
+  test('bad residual-test settings are located problems, not throws', async () => {
+    for (const settings of [{ standard: 'third', critical: 0 }, { standard: 'third', sigma0Mm: Number.NaN }]) {
+      const out = await kits.levelNet('s.csv', demo('ridge-line-stations.csv'), 'l.csv', demo('ridge-line-lines.csv'), settings);
+      expect(out.ok).toBe(false);
+      if (!out.ok) expect(out.problems[0].where).toBe('residual test');
+    }
   });
 
   test('stations with x, y columns are drawn at their positions (east to the right, north up)', async () => {
@@ -63,9 +72,24 @@ describe('the kit methods of the compute service', () => {
     expect(r.report.cycles).toHaveLength(3);
     expect(r.cyclesSkipped).toBeNull();
     expect(r.edges.length / 2).toBe(r.report.edges);
+    expect(r.drawStride).toBe(1);
     expect(Array.from(r.positions).every((p) => p >= 0 && p <= 1)).toBe(true);
     expect(phases[0]).toBe('read');
     expect(MESH_CYCLE_LIMIT).toBeGreaterThan(r.report.triangles);
+  });
+
+  test('the Klein bottle: (1, 2, 1) over GF(2), (1, 1, 0) over the rationals, non-orientable either way (Hatcher 2002, check-values.md)', async () => {
+    const obj = toObj(36, kleinBottle(6));
+    const gf2 = await kits.meshTopology('klein.obj', obj, undefined, { field: 'prime:2' });
+    const q = await kits.meshTopology('klein.obj', obj, undefined, { field: 'rational' });
+    expect(gf2.ok && gf2.result.report).toMatchObject({ betti: [1, 2, 1], field: 'prime:2', closed: true, orientable: false });
+    expect(q.ok && q.result.report).toMatchObject({ betti: [1, 1, 0], field: 'rational', closed: true, orientable: false });
+    // The default stays GF(2).
+    const plain = await kits.meshTopology('klein.obj', obj);
+    expect(plain.ok && plain.result.report.betti).toEqual([1, 2, 1]);
+    const bad = await kits.meshTopology('klein.obj', obj, undefined, { field: 'prime:3' as never });
+    expect(bad.ok).toBe(false);
+    if (!bad.ok) expect(bad.problems[0]).toMatchObject({ where: 'coefficients', message: expect.stringContaining('prime:3') });
   });
 
   test('a file that is not a mesh is refused with a message', async () => {

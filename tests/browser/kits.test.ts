@@ -56,8 +56,25 @@ test('each kit goes from uploaded files to a drawn result and a JSON export; a b
   await page.getByTestId('lines-input').setInputFiles(demo('ridge-line-lines.csv'));
   await expect.poll(() => page.getByTestId('levelling-loop-count').textContent(), { timeout: 15_000 }).toBe('5');
   expect(await page.getByTestId('levelling-loops-failing').textContent()).toBe('2');
-  expect(await page.getByTestId('levelling-flagged').textContent()).toContain('RL-04 → RL-07');
   expect(await page.getByTestId('levelling-dof').textContent()).toBe('6');
+  // Standardised residuals with the a-posteriori σ0: |w| ≤ √6 < 3.29, said on screen; the blunder has the largest |w|.
+  expect(await page.getByTestId('levelling-test-note').textContent()).toContain('√dof = 2.45');
+  expect(await page.getByTestId('levelling-largest-w').textContent()).toContain('RL-04 → RL-07');
+  expect(await page.getByTestId('levelling-redundancy-sum').textContent()).toBe('6.000');
+  expect(await page.getByTestId('levelling-flagged').count()).toBe(0);
+  // An a-priori σ0 of 3 mm per √km (the demo's invented setting) flags the blunder alone.
+  await page.getByLabel('a-priori sigma0 in millimetres').fill('3');
+  await page.getByTestId('levelling-compute').click();
+  await expect.poll(() => page.getByTestId('levelling-flag-count').textContent(), { timeout: 15_000 }).toBe('1');
+  expect(await page.getByTestId('levelling-flagged').textContent()).toContain('RL-04 → RL-07 (line 13) w = -4.87');
+  expect(await page.getByTestId('kit-settings').textContent()).toContain('3.00 mm per √km (a-priori)');
+  // A critical value that is not a number is a located problem.
+  await page.getByLabel('critical value of w').fill('abc');
+  await page.getByTestId('levelling-compute').click();
+  await expect.poll(() => page.getByRole('alert').textContent(), { timeout: 15_000 }).toContain('residual test');
+  await page.getByLabel('critical value of w').fill('3.29');
+  await page.getByTestId('levelling-compute').click();
+  await expect.poll(() => page.getByTestId('levelling-flag-count').textContent(), { timeout: 15_000 }).toBe('1');
   expect(await page.getByTestId('kit-settings').textContent()).toContain('second order, class II');
   expect(await page.getByRole('complementary', { name: 'Cautions' }).textContent()).toContain('Defer to licensed engineers');
   await expect.poll(() => drawn(page, 'levelling-sketch')).toBe(true);
@@ -124,8 +141,95 @@ test('each kit goes from uploaded files to a drawn result and a JSON export; a b
   await expect.poll(() => page.getByTestId('mesh-cycles-skipped').textContent(), { timeout: 30_000 }).toContain('this mesh has 217,800');
   expect(await page.getByTestId('mesh-betti').textContent()).toBe('(1, 2, 1)');
   expect((await seenTestIds(page))['mesh-progress']).toBe(true);
+  // Not every edge is drawn at this size, and the picture says so.
+  expect(await page.getByTestId('mesh-draw-note').textContent()).toMatch(/a sample: [\d,]+ of 326,700 edges drawn \(the edges of every 11th cell of the file\)/);
   await screenshot(page, 'kits-mesh-large');
 
+  // Cancel: the same mesh again, stopped while it computes; the next computation starts a fresh worker.
+  await page.getByTestId('mesh-input').setInputFiles(tempFile('big-torus-again.obj', torusObj(330, 330)));
+  await page.getByTestId('mesh-cancel').click();
+  await expect.poll(() => page.getByTestId('kit-cancelled').count(), { timeout: 10_000 }).toBe(1);
+  expect(await page.getByTestId('mesh-progress').count()).toBe(0);
+  expect(await page.getByTestId('mesh-betti').count()).toBe(0);
+  await page.getByRole('button', { name: 'Load the invented culvert ring' }).click();
+  await expect.poll(() => page.getByTestId('mesh-betti').textContent(), { timeout: 20_000 }).toBe('(1, 2, 1)');
+  expect(await page.getByTestId('kit-cancelled').count()).toBe(0);
+
+  expect(errors).toEqual([]);
+  await context.close();
+});
+
+test('a kit result saved into a project is listed there with its inputs, engine version and time, and survives a reload', async () => {
+  const { page, context, errors } = await newPage(browser);
+  await page.goto(inject('appUrl'));
+  await page.getByRole('link', { name: /Demo:/ }).waitFor();
+  await page.getByRole('link', { name: 'Kits', exact: true }).click();
+  await page.getByRole('navigation', { name: 'Kits' }).getByRole('link', { name: 'Levelling net' }).click();
+  await page.getByRole('button', { name: 'Load the invented ridge-line demo' }).click();
+  await expect.poll(() => page.getByTestId('levelling-flag-count').textContent(), { timeout: 15_000 }).toBe('1');
+  expect(await page.getByLabel('Project to keep the result in').locator('option:checked').textContent()).toMatch(/^Demo:/);
+  const before = Date.now();
+  await page.getByTestId('kit-save-button').click();
+  await expect.poll(() => page.getByTestId('kit-saved').textContent(), { timeout: 10_000 }).toMatch(/Saved to Demo:/);
+  // The saved copy is the one in the project, not this screen: open it from there.
+  await page.getByTestId('kit-saved').getByRole('link').click();
+  await page.waitForURL(/\/p\/[^/]+$/);
+  const entry = page.getByTestId('kit-shelf').getByRole('link', { name: /Levelling net: ridge-line-lines\.csv/ });
+  await entry.waitFor();
+  expect(await entry.textContent()).toContain('engine 0.1.0');
+  await page.reload();
+  await entry.click();
+  await page.waitForURL(/\/p\/[^/]+\/k\/[^/]+$/);
+  const summary = await page.getByTestId('saved-kit-summary').textContent();
+  expect(summary).toContain('12 stations · 16 lines · dof 6 · 2 of 5 loops over tolerance · 1 line flagged');
+  const provenance = (await page.getByTestId('saved-kit-provenance').textContent())!;
+  expect(provenance).toContain('Gluefield engine 0.1.0');
+  expect(provenance).toContain('ridge-line-stations.csv');
+  expect(provenance).toContain('ridge-line-lines.csv');
+  expect(provenance).toContain('a-priori');
+  expect(await page.getByTestId('saved-kit-headline').textContent()).toContain('RL-04 → RL-07 (w = -4.87)');
+  expect(await page.getByTestId('kit-caution').textContent()).toContain('local survey regulations');
+  expect(await page.getByRole('complementary', { name: 'Cautions' }).textContent()).toContain('Defer to licensed engineers');
+  // The report kept is the whole report, exported as it was saved.
+  const [download] = await Promise.all([page.waitForEvent('download'), page.getByTestId('saved-kit-export').click()]);
+  const saved = JSON.parse(readFileSync(await download.path(), 'utf8')) as { flagged: { from: string }[]; test: { sigma0_mm: number } };
+  expect(saved.flagged.map((f) => f.from)).toEqual(['RL-04']);
+  expect(saved.test.sigma0_mm).toBe(3);
+  // And the input as it was read.
+  const [input] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Download ridge-line-lines.csv' }).click()]);
+  expect(readFileSync(await input.path(), 'utf8')).toBe(readFileSync(new URL('../../shared/kits/demo/ridge-line-lines.csv', import.meta.url), 'utf8'));
+  // Saved when we saved it: the store's stamp is shown in local time.
+  const stampText = await page.evaluate(() => document.querySelector('[data-testid="saved-kit-provenance"] dd:nth-of-type(2)')?.textContent ?? '');
+  expect(Math.abs(new Date(stampText).getTime() - before)).toBeLessThan(120_000);
+  await screenshot(page, 'kits-saved-in-project');
+  expect(errors).toEqual([]);
+  await context.close();
+});
+
+test('the mesh kit offers the rationals: a Klein bottle is (1, 2, 1) over GF(2) and (1, 1, 0) over the rationals (Hatcher 2002)', async () => {
+  const { page, context, errors } = await newPage(browser);
+  await page.goto(`${inject('appUrl')}/kits/mesh`);
+  // Klein bottle: a 6 × 6 grid, sides j glued straight, sides i with the flip (6, j) ~ (0, 6 − j).
+  const n = 6;
+  const v = (i: number, j: number) => (i === n ? ((n - (j % n)) % n) : i * n + (j % n)) + 1;
+  const lines: string[] = [];
+  for (let k = 0; k < n * n; k++) lines.push(`v ${k % n} ${Math.floor(k / n)} ${(k * 7) % 5}`);
+  for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) lines.push(`f ${v(i, j)} ${v(i + 1, j)} ${v(i + 1, j + 1)}`, `f ${v(i, j)} ${v(i + 1, j + 1)} ${v(i, j + 1)}`);
+  await page.getByTestId('mesh-input').setInputFiles(tempFile('klein.obj', lines.join('\n') + '\n'));
+  await expect.poll(() => page.getByTestId('mesh-betti').textContent(), { timeout: 20_000 }).toBe('(1, 2, 1)');
+  expect(await page.getByTestId('mesh-orientable').textContent()).toBe('no');
+  expect(await page.getByTestId('kit-caution').textContent()).toContain('GF(2)');
+  await page.getByLabel('Coefficients').selectOption('rational');
+  await expect.poll(() => page.getByTestId('mesh-betti').textContent(), { timeout: 20_000 }).toBe('(1, 1, 0)');
+  expect(await page.getByTestId('mesh-orientable').textContent()).toBe('no');
+  expect(await page.getByTestId('kit-settings').textContent()).toContain('rational');
+  expect(await page.getByTestId('kit-caution').textContent()).toContain('non-orientable one has b₂ = 0');
+  // The culvert ring is orientable: over the rationals its void stays (1, 2, 1).
+  await page.getByRole('button', { name: 'Load the invented culvert ring' }).click();
+  await expect.poll(() => page.getByTestId('kit-settings').textContent(), { timeout: 20_000 }).toContain('rational');
+  await expect.poll(() => page.getByTestId('mesh-betti').textContent(), { timeout: 20_000 }).toBe('(1, 2, 1)');
+  expect(await page.getByTestId('mesh-orientable').textContent()).toBe('yes');
+  await screenshot(page, 'kits-mesh-rational');
   expect(errors).toEqual([]);
   await context.close();
 });

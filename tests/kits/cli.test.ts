@@ -75,7 +75,10 @@ describe('level-net STATIONS.csv LINES.csv', () => {
     expect(out).toMatchObject({ heights: { A: 100, B: 102.00625, C: 103.00375 }, dof: 1 });
     expect(out.sigma0 as number).toBeCloseTo(0.0075, 9);
     const residuals = out.residuals as { from: string; to: string; residual: number }[];
-    expect(residuals.map((r) => Object.keys(r))).toEqual([['from', 'to', 'residual'], ['from', 'to', 'residual'], ['from', 'to', 'residual']]);
+    // The first keys are the original contract; the test's fields were added after them.
+    for (const r of residuals) expect(Object.keys(r)).toEqual(['from', 'to', 'residual', 'redundancy', 'sd_mm', 'w']);
+    expect(residuals.map((r) => (r as unknown as { redundancy: number }).redundancy)).toEqual([0.25, 0.5, 0.25]);
+    expect(out.test).toMatchObject({ critical: 3.29, sigma0_source: 'a-posteriori', redundancy_sum: 1 });
     const loops = out.loops as Record<string, unknown>[];
     expect(loops).toHaveLength(1);
     expect(Object.keys(loops[0]).sort()).toEqual(['allowable_mm', 'length_km', 'misclosure_mm', 'ok', 'stations']);
@@ -92,6 +95,18 @@ describe('level-net STATIONS.csv LINES.csv', () => {
     expectBadInput(cli('level-net', s, l, '--standard', 'fourth'), '--standard', 'fourth');
     expectBadInput(cli('level-net', s, l, '--c-mm', '-3'), '--c-mm');
     expectBadInput(cli('level-net', s, l, '--c-mm', '3', '--standard', 'third'), 'not both');
+  });
+  test('--sigma0-mm and --critical set the standardised residual test (hand computation: w = −7.5 with σ0 = 1 mm)', () => {
+    const s = file('s.csv', STATIONS);
+    const l = file('l.csv', LINES);
+    const out = expectJson(cli('level-net', s, l, '--sigma0-mm', '1', '--critical', '8'));
+    expect(out.test).toMatchObject({ critical: 8, sigma0_mm: 1, sigma0_source: 'a-priori' });
+    expect((out.residuals as { w: number }[]).map((r) => r.w)).toEqual([-7.5, -7.5, -7.5]);
+    expect(out.flagged).toEqual([]);
+    const flagged = expectJson(cli('level-net', s, l, '--sigma0-mm', '1')).flagged as { from: string; w: number; line: number }[];
+    expect(flagged.map((f) => [f.from, f.w, f.line])).toEqual([['A', -7.5, 2], ['B', -7.5, 3], ['C', -7.5, 4]]);
+    expectBadInput(cli('level-net', s, l, '--critical', '0'), '--critical');
+    expectBadInput(cli('level-net', s, l, '--sigma0-mm', 'two'), '--sigma0-mm', 'two');
   });
   test.each([
     ['a station without a path to a benchmark', 'id,height\nA,100\nB,\nC,\n', 'from,to,rise,length_km\nA,B,1,1\n', /station "C" has no path of lines to a benchmark/],

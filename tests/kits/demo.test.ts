@@ -11,7 +11,7 @@ import { adjustLevellingNet, analyseFrame, analyseMesh, readFrameCsv, readLevell
 const demo = (name: string) => readFileSync(new URL(`../../shared/kits/demo/${name}`, import.meta.url), 'utf8');
 
 describe('kit demo data', () => {
-  test('ridge-line net: the blunder on RL-04 → RL-07 fails both its loops and is the one flagged line', () => {
+  test('ridge-line net: the blunder on RL-04 → RL-07 fails both its loops and has the largest standardised residual', () => {
     const read = readLevellingCsv(demo('ridge-line-stations.csv'), demo('ridge-line-lines.csv'));
     expect(read.problems).toEqual([]);
     const r = adjustLevellingNet(read.net!);
@@ -23,7 +23,14 @@ describe('kit demo data', () => {
     const failing = r.loops.filter((l) => !l.ok);
     expect(failing).toHaveLength(2);
     for (const l of failing) expect(l.stations).toEqual(expect.arrayContaining(['RL-04', 'RL-07']));
-    expect(r.flagged.map((f) => `${f.from}→${f.to}`)).toEqual(['RL-04→RL-07']);
+    // With σ0 from these residuals |w| ≤ √6 = 2.45 < 3.29: nothing can be flagged, and the report says so.
+    expect(r.flagged).toEqual([]);
+    expect(r.test.largest).toMatchObject({ from: 'RL-04', to: 'RL-07' });
+    expect(r.test.note).toMatch(/√dof = 2\.45/);
+    // An a-priori σ0 of 3 mm per √km (a setting invented for the demo) flags exactly the blunder.
+    const apriori = adjustLevellingNet(read.net!, { sigma0Mm: 3 });
+    expect(apriori.flagged.map((f) => `${f.from}→${f.to}`)).toEqual(['RL-04→RL-07']);
+    expect(apriori.flagged[0].w).toBeLessThan(-3.29);
   });
   test('footbridge truss: determinate; with the extra diagonal one self-stress in panel L1-L2-U2-U1', () => {
     const plain = readFrameCsv(demo('footbridge-joints.csv'), demo('footbridge-bars.csv'));

@@ -8,7 +8,7 @@
  * are checked against an independent weighted least-squares solve with
  * ml-matrix, and σ0, dof by hand.
  */
-import { Matrix, solve } from 'ml-matrix';
+import { inverse, Matrix, solve } from 'ml-matrix';
 import { describe, expect, test } from 'vitest';
 import { adjustLevellingNet, customStandard, levellingStandard, readLevellingCsv, type LevellingNet } from '../../shared/kits';
 
@@ -67,10 +67,43 @@ describe('a hand-checkable loop', () => {
     expect(own.standard).toMatchObject({ key: 'custom', c_mm: 5 });
     expect(own.loops[0].allowable_mm).toBe(10);
   });
-  test('a line is flagged when its residual exceeds c·√(its length): 7.5 mm > 4 √2 mm on B → C', () => {
-    const strict = adjustLevellingNet(net(HAND_STATIONS, HAND_LINES), { standard: levellingStandard('first-II') });
-    expect(strict.flagged).toEqual([{ from: 'B', to: 'C', residual_mm: -7.5, allowable_mm: 5.657 }]);
+  /*
+   * One loop of length K through one benchmark: Q_vv = P⁻¹Bᵀ(BP⁻¹Bᵀ)⁻¹BP⁻¹
+   * with B the loop's row of signs, so q_vv = L²/K and r = L/K:
+   * 1/4, 2/4, 1/4, summing to dof = 1 (common practice; hand computation).
+   * σ_v = σ0·L/√K = 7.5·(1, 2, 1)/2 = 3.75, 7.5, 3.75 mm with σ0 = 7.5 mm,
+   * and w = v/σ_v = −1 on every line: one loop cannot tell which line erred.
+   */
+  test('redundancy numbers L/K = 0.25, 0.5, 0.25 sum to dof; w = −1 on every line with the a-posteriori σ0 (hand computation)', () => {
+    expect(report.residuals.map((r) => r.redundancy)).toEqual([0.25, 0.5, 0.25]);
+    expect(report.test.redundancy_sum).toBe(report.dof);
+    expect(report.residuals.map((r) => r.sd_mm)).toEqual([3.75, 7.5, 3.75]);
+    expect(report.residuals.map((r) => r.w)).toEqual([-1, -1, -1]);
+    expect(report.test).toMatchObject({ critical: 3.29, sigma0_mm: 7.5, sigma0_source: 'a-posteriori' });
+    expect(report.test.source).toMatch(/common practice/);
     expect(report.flagged).toEqual([]);
+    // √dof = 1 < 3.29: the report says why nothing can be flagged.
+    expect(report.test.note).toMatch(/√dof = 1\.00/);
+  });
+  test('with an a-priori σ0 the test can flag: 1 mm gives w = −7.5 on every line, 3 mm gives −2.5 (flagged only below critical 2.5)', () => {
+    const tight = adjustLevellingNet(net(HAND_STATIONS, HAND_LINES), { sigma0Mm: 1 });
+    expect(tight.residuals.map((r) => r.w)).toEqual([-7.5, -7.5, -7.5]);
+    expect(tight.flagged.map((f) => `${f.from}-${f.to}`)).toEqual(['A-B', 'B-C', 'C-A']);
+    expect(tight.flagged[1]).toEqual({ from: 'B', to: 'C', residual_mm: -7.5, allowable_mm: 11.314, w: -7.5, redundancy: 0.5, line: 3 });
+    expect(tight.test).toMatchObject({ sigma0_mm: 1, sigma0_source: 'a-priori', note: null });
+    const loose = adjustLevellingNet(net(HAND_STATIONS, HAND_LINES), { sigma0Mm: 3 });
+    expect(loose.residuals.map((r) => r.w)).toEqual([-2.5, -2.5, -2.5]);
+    expect(loose.flagged).toEqual([]);
+    const edited = adjustLevellingNet(net(HAND_STATIONS, HAND_LINES), { sigma0Mm: 3, critical: 2.4 });
+    expect(edited.flagged).toHaveLength(3);
+    expect(edited.test.critical).toBe(2.4);
+  });
+  test('a spur line has redundancy 0 and is not tested; bad test settings are refused', () => {
+    const spur = adjustLevellingNet(net(HAND_STATIONS + 'D,\n', HAND_LINES + 'C,D,0.5,0.7\n'), { sigma0Mm: 1 });
+    expect(spur.residuals[3]).toMatchObject({ from: 'C', to: 'D', residual: 0, redundancy: 0, sd_mm: null, w: null });
+    expect(spur.test.redundancy_sum).toBe(1);
+    expect(() => adjustLevellingNet(net(HAND_STATIONS, HAND_LINES), { critical: 0 })).toThrow(RangeError);
+    expect(() => adjustLevellingNet(net(HAND_STATIONS, HAND_LINES), { sigma0Mm: -1 })).toThrow(RangeError);
   });
 });
 
@@ -141,6 +174,30 @@ describe('against an independent least-squares solve (ml-matrix)', () => {
     expect(report.sigma0!).toBeCloseTo(Math.sqrt(vwv / dof), 8);
   });
 
+  test('redundancy numbers, σ_v and w agree with a dense Q_vv = P⁻¹ − A(AᵀPA)⁻¹Aᵀ from ml-matrix (common practice)', () => {
+    const free = ids.map((_, i) => i).filter((i) => !benchmarks.has(i));
+    const A = new Matrix(theNet.lines.map((l) => free.map((v) => (v === ids.indexOf(l.to) ? 1 : v === ids.indexOf(l.from) ? -1 : 0))));
+    const P = Matrix.diag(theNet.lines.map((l) => 1 / l.lengthKm));
+    const Qxx = inverse(A.transpose().mmul(P).mmul(A));
+    const Qvv = Matrix.diag(theNet.lines.map((l) => l.lengthKm)).sub(A.mmul(Qxx).mmul(A.transpose()));
+    const sigma0 = report.test.sigma0_mm! / 1000;
+    let sum = 0;
+    theNet.lines.forEach((l, i) => {
+      const q = Qvv.get(i, i);
+      const r = q / l.lengthKm;
+      sum += r;
+      expect(report.residuals[i].redundancy).toBeCloseTo(r, 6);
+      expect(report.residuals[i].sd_mm!).toBeCloseTo(sigma0 * Math.sqrt(q) * 1000, 3);
+      const v = report.residuals[i].residual;
+      expect(report.residuals[i].w!).toBeCloseTo(v / (sigma0 * Math.sqrt(q)), 1);
+    });
+    // The trace of the redundancy matrix is the number of degrees of freedom.
+    expect(sum).toBeCloseTo(report.dof, 9);
+    expect(report.test.redundancy_sum).toBeCloseTo(report.dof, 6);
+    // With σ0 from these residuals, w² ≤ dof on every line.
+    for (const r of report.residuals) expect(Math.abs(r.w!)).toBeLessThanOrEqual(Math.sqrt(report.dof) + 1e-3);
+  });
+
   test('loops form a cycle basis: lines − stations + 1 closed walks, each checked by its own sum of rises', () => {
     expect(report.loops).toHaveLength(theNet.lines.length - ids.length + 1);
     // Benchmark runs: 3 benchmarks in one piece give 2; loops + runs = dof.
@@ -193,5 +250,31 @@ describe('readLevellingCsv rejects bad input with one located problem each', () 
     const r = readLevellingCsv('\ufeffid;height;note\nA;100;north pillar\nB;;\n', 'from;to;rise;length_km\nA;B;1.5;0.8\n');
     expect(r.problems).toEqual([]);
     expect(adjustLevellingNet(r.net!).heights).toEqual({ A: 100, B: 101.5 });
+  });
+});
+
+describe('a net of thousands of lines', () => {
+  test('a 60 × 60 grid net (3600 stations, 7080 lines, 4 benchmarks): Σ r = dof and every r in [0, 1]', () => {
+    const side = 60;
+    const id = (i: number, j: number) => `P${i}_${j}`;
+    const corners = new Set([id(0, 0), id(0, side - 1), id(side - 1, 0), id(side - 1, side - 1)]);
+    const stations = ['id,height'];
+    for (let i = 0; i < side; i++) for (let j = 0; j < side; j++) stations.push(`${id(i, j)},${corners.has(id(i, j)) ? (100 + i + j).toFixed(3) : ''}`);
+    const lines = ['from,to,rise,length_km'];
+    let k = 0;
+    const wobble = () => (((k++ * 7919) % 13) - 6) * 0.0002;
+    for (let i = 0; i < side; i++)
+      for (let j = 0; j < side; j++) {
+        if (j + 1 < side) lines.push(`${id(i, j)},${id(i, j + 1)},${(1 + wobble()).toFixed(4)},${(0.4 + (k % 5) * 0.1).toFixed(2)}`);
+        if (i + 1 < side) lines.push(`${id(i, j)},${id(i + 1, j)},${(1 + wobble()).toFixed(4)},${(0.4 + (k % 7) * 0.1).toFixed(2)}`);
+      }
+    const r = adjustLevellingNet(net(stations.join('\n'), lines.join('\n')));
+    expect(r.residuals).toHaveLength(2 * side * (side - 1));
+    expect(r.dof).toBe(2 * side * (side - 1) - (side * side - 4));
+    expect(r.test.redundancy_sum).toBeCloseTo(r.dof, 4);
+    for (const x of r.residuals) {
+      expect(x.redundancy).toBeGreaterThanOrEqual(0);
+      expect(x.redundancy).toBeLessThanOrEqual(1);
+    }
   });
 });

@@ -34,7 +34,8 @@ describe('schema upgrade 1 → 2', () => {
 
     const db = openDb(name);
     await db.open();
-    expect(db.verno).toBe(4);
+    expect(db.verno).toBe(5);
+    expect(await db.kitResults.count()).toBe(0);
     expect(await db.runs.where('projectId').equals('p1').primaryKeys()).toEqual(['r1', 'r2']);
     expect((await db.runs.get('r-orphan'))?.projectId).toBe('');
     expect((await db.models.get('m1'))?.bytes).toBe(text.length);

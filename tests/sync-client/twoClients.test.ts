@@ -47,8 +47,10 @@ describe('schema 3 → 4', () => {
     v3.close();
     const db = openDb(name);
     await db.open();
-    expect(db.verno).toBe(4);
+    // Opened at the latest schema (5 adds kit results after 4's sync tables).
+    expect(db.verno).toBe(5);
     expect(await db.projects.count()).toBe(1);
+    expect(await db.kitResults.count()).toBe(0);
     expect(await db.outbox.count()).toBe(0);
     expect(await db.syncLinks.count()).toBe(0);
     db.close();

@@ -278,6 +278,16 @@ export class SparseCholesky {
     return Int32Array.from(this.zeroSteps, (s) => this.order[s]);
   }
 
+  /**
+   * The factor as stored: column s of the unit lower triangle L holds the
+   * unknowns `lIdx[lPtr[s] … lPtr[s+1]]` (all eliminated after step s)
+   * with multipliers `lVal`; D is {@link pivot}. The arrays are the
+   * factor's own: read, do not write.
+   */
+  get factor(): { order: Int32Array; pivot: Float64Array; lPtr: Int32Array; lIdx: Int32Array; lVal: Float64Array } {
+    return { order: this.order, pivot: this.pivot, lPtr: this.lPtr, lIdx: this.lIdx, lVal: this.lVal };
+  }
+
   /** Step at which unknown i was eliminated. */
   stepOfUnknown(i: number): number {
     return this.stepOf[i];

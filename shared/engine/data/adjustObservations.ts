@@ -1,9 +1,11 @@
 import { cellOffsets } from '../based/BasedComplex';
 import type { Sheaf } from '../model/Sheaf';
 import { coboundaryMatrix } from './coboundaryMatrix';
+import type { CsrMatrix } from './CsrMatrix';
 import { csrFromTriplets, csrMatTVec, csrMatVec, csrMaxAbs, csrMultiply, csrTranspose } from './CsrMatrix';
 import { removeCoboundaries } from './harmonicRepresentatives';
 import { norm } from './orthonormalise';
+import { SelectedInverse } from './SelectedInverse';
 import { SparseCholesky } from './SparseCholesky';
 
 /** Observations on edges: a 1-cochain with a weight per edge, and optional known vertex values. */
@@ -40,11 +42,22 @@ export interface Adjustment {
    * edges disagree), and then b has no class.
    */
   unexplained?: { harmonic: Float64Array; norm: number; cocycle: boolean };
+  /**
+   * Per observed coordinate r, the cofactor of the adjusted observation
+   * (A Q_x̂x̂ Aᵀ)_rr with Q_x̂x̂ = (AᵀWA)⁻¹ over the free unknowns; 0 on
+   * unobserved ones. Its residual's cofactor is 1/w_r minus this, and the
+   * redundancy number is 1 − w_r times this (common practice in adjustment
+   * computations). Present with the `cofactors` option when every free
+   * unknown is determined.
+   */
+  adjustedCofactor?: Float64Array;
 }
 
 export interface AdjustOptions {
   /** Compute the class of b in H^1 (one more factorisation, of the unweighted Laplacian); default true. */
   unexplained?: boolean;
+  /** Compute {@link Adjustment.adjustedCofactor} from the entries of (AᵀWA)⁻¹ on its pattern; default false. */
+  cofactors?: boolean;
 }
 
 /**
@@ -133,7 +146,41 @@ export function adjustObservations(sheaf: Sheaf<unknown>, obs: EdgeObservations,
     sigma0: dof > 0 ? Math.sqrt(weightedSquares / dof) : undefined,
     undetermined,
     unexplained: options.unexplained !== false && observations === m ? unexplainedPart(sheaf, D, obs.values, residual) : undefined,
+    adjustedCofactor: options.cofactors && !chol.isSingular() ? adjustedCofactors(A, rowWeight, new SelectedInverse(chol), chol) : undefined,
   };
+}
+
+/**
+ * aᵀ Z a for each observed row a of the design. Only pairs of one row's
+ * unknowns are needed, and each such pair is an entry of AᵀWA, so it is on
+ * the selected inverse's pattern, unless the row's contributions cancelled
+ * exactly there; such a row is solved for directly.
+ */
+function adjustedCofactors(A: CsrMatrix, rowWeight: Float64Array, Z: SelectedInverse, chol: SparseCholesky): Float64Array {
+  const out = new Float64Array(A.rows);
+  rows: for (let r = 0; r < A.rows; r++) {
+    if (rowWeight[r] === 0) continue;
+    const a = A.rowPtr[r];
+    const b = A.rowPtr[r + 1];
+    let q = 0;
+    for (let e = a; e < b; e++) {
+      q += A.val[e] * A.val[e] * Z.diagonal[A.col[e]];
+      for (let f = e + 1; f < b; f++) {
+        const z = Z.find(A.col[e], A.col[f]);
+        if (z === undefined) {
+          const row = new Float64Array(A.cols);
+          for (let g = a; g < b; g++) row[A.col[g]] = A.val[g];
+          const solved = chol.solve(row);
+          out[r] = 0;
+          for (let g = a; g < b; g++) out[r] += A.val[g] * solved[A.col[g]];
+          continue rows;
+        }
+        q += 2 * A.val[e] * A.val[f] * z;
+      }
+    }
+    out[r] = q;
+  }
+  return out;
 }
 
 /** Vertices touched by the kernel of the normal matrix (the datum defect). */

@@ -31,9 +31,11 @@ export function denseTail(rest: number[], idx: Int32Array[], val: Float64Array[]
     smallest = Math.min(smallest, d / scale);
     for (let r = s + 1; r < R; r++) {
       const a = D[r * R + s];
-      if (a === 0) continue;
+      // Zeros are kept in L: the block is structurally full, and the selected
+      // inverse relies on every later pair of a column being on the pattern.
       entries.push(r);
       values.push(a / d);
+      if (a === 0) continue;
       const f = a / d;
       const row = r * R;
       const prow = s * R;

@@ -2,6 +2,7 @@ export type { CsrMatrix } from './CsrMatrix';
 export { csrFromTriplets, csrMatVec, csrMatTVec, csrTranspose, csrMultiply, csrAdd, csrZero, csrMaxAbs } from './CsrMatrix';
 export { coboundaryMatrix, basedCoboundaryMatrix } from './coboundaryMatrix';
 export { SparseCholesky, type CholeskyOptions } from './SparseCholesky';
+export { SelectedInverse } from './SelectedInverse';
 export { DenseQR } from './DenseQR';
 export { symmetricEigen, type SymmetricEigen } from './symmetricEigen';
 export { orthonormalise, principalBasis, projectOut, dot, norm } from './orthonormalise';
