@@ -7,8 +7,9 @@ const syncId = z.string().min(1).max(128).regex(/^[A-Za-z0-9._:@-]+$/, { message
  * A readings document's body: which model it belongs to, its name, and the
  * readings file inline (`text`) unless the change names a gzip upload. The
  * server cannot check readings against the model's cells (the model may be
- * an upload it never parses), so it checks the file's own shape here and
- * each client checks the cells when it adopts the document.
+ * an upload it never parses), so it checks the file's own shape here; the
+ * cells are checked by the engine wherever the readings are read
+ * (`readReadings`).
  */
 export const readingsBody = z.object({
   modelId: syncId,

@@ -5,7 +5,8 @@ import type { Problem } from '../../shared/engine';
 import { appDb } from '../app/db';
 import { useHotkeys } from '../app/useHotkeys';
 import type { Progress } from '../compute/computeService';
-import { deleteModel, loadModelText, type ModelRow } from '../store';
+import { deleteModel, loadModelText, renameModel, type ModelRow } from '../store';
+import { recordModelDeleted, recordModelSaved } from '../sync/recordChange';
 import { Button } from '../ui/Button';
 import { ConfirmDialog } from '../ui/ConfirmDialog';
 import { Kbd } from '../ui/Kbd';
@@ -17,7 +18,7 @@ import { useModels } from './useModelData';
 const ACCEPT = '.json,.csv,.tsv,.txt,.obj,.off';
 
 /** The project's models, with import by picker or drag-and-drop and export. */
-export function ModelShelf({ projectId, modelId }: { projectId: string; modelId?: string }) {
+export function ModelShelf({ projectId, modelId, readOnly = false }: { projectId: string; modelId?: string; readOnly?: boolean }) {
   const models = useModels(projectId);
   const qc = useQueryClient();
   const navigate = useNavigate();
@@ -26,6 +27,7 @@ export function ModelShelf({ projectId, modelId }: { projectId: string; modelId?
   const [problems, setProblems] = useState<{ file: string; list: Problem[] }>();
   const [dragging, setDragging] = useState(false);
   const [doomed, setDoomed] = useState<ModelRow>();
+  const [renaming, setRenaming] = useState<string>();
   useHotkeys({ i: () => picker.current?.click() });
 
   const importFiles = async (files: FileList | File[]) => {
@@ -100,19 +102,38 @@ export function ModelShelf({ projectId, modelId }: { projectId: string; modelId?
       <ul className="min-h-0 flex-1 space-y-1 overflow-auto">
         {models.data?.map((m) => (
           <li key={m.id} className={`group rounded px-2 py-1.5 ${m.id === modelId ? 'bg-glued-soft' : 'hover:bg-rule-soft'}`}>
-            <Link to={`/p/${projectId}/m/${m.id}`} className="block">
-              <span className="block truncate text-sm font-medium">{m.name}</span>
-              <span className="num block text-[11px] text-ink-faint">
-                {m.cells.reduce((a, b) => a + b, 0).toLocaleString()} cells · {m.field} · v{m.version}
-              </span>
-            </Link>
+            {renaming === m.id ? (
+              <RenameForm
+                model={m}
+                onDone={() => {
+                  setRenaming(undefined);
+                  void qc.invalidateQueries({ queryKey: ['models', projectId] });
+                  void qc.invalidateQueries({ queryKey: ['model', m.id] });
+                  void qc.invalidateQueries({ queryKey: ['sync', projectId] });
+                }}
+              />
+            ) : (
+              <Link to={`/p/${projectId}/m/${m.id}`} className="block">
+                <span className="block truncate text-sm font-medium">{m.name}</span>
+                <span className="num block text-[11px] text-ink-faint">
+                  {m.cells.reduce((a, b) => a + b, 0).toLocaleString()} cells · {m.field} · v{m.version}
+                </span>
+              </Link>
+            )}
             <div className="mt-1 hidden gap-1 group-hover:flex group-focus-within:flex">
               <Button tone="quiet" className="text-xs" onClick={() => void exportModel(m)}>
                 Export
               </Button>
-              <Button tone="quiet" className="text-xs" onClick={() => setDoomed(m)}>
-                Delete
-              </Button>
+              {!readOnly && (
+                <>
+                  <Button tone="quiet" className="text-xs" onClick={() => setRenaming(m.id)} aria-label={`Rename ${m.name}`}>
+                    Rename
+                  </Button>
+                  <Button tone="quiet" className="text-xs" onClick={() => setDoomed(m)} aria-label={`Delete ${m.name}`}>
+                    Delete
+                  </Button>
+                </>
+              )}
             </div>
           </li>
         ))}
@@ -127,13 +148,49 @@ export function ModelShelf({ projectId, modelId }: { projectId: string; modelId?
           const m = doomed;
           setDoomed(undefined);
           if (m)
-            void deleteModel(appDb(), m.id).then(() => {
+            void (async () => {
+              await deleteModel(appDb(), m.id);
+              await recordModelDeleted(appDb(), m);
               void qc.invalidateQueries({ queryKey: ['models', projectId] });
+              void qc.invalidateQueries({ queryKey: ['sync', projectId] });
               if (m.id === modelId) navigate(`/p/${projectId}`);
-            });
+            })();
         }}
       />
     </section>
+  );
+}
+
+function RenameForm({ model, onDone }: { model: ModelRow; onDone(): void }) {
+  const [name, setName] = useState(model.name);
+  const [error, setError] = useState<string>();
+  return (
+    <form
+      className="flex flex-col gap-1"
+      onSubmit={(e) => {
+        e.preventDefault();
+        void (async () => {
+          try {
+            const next = await renameModel(appDb(), model.id, name);
+            await recordModelSaved(appDb(), next);
+            onDone();
+          } catch (err) {
+            setError((err as Error).message);
+          }
+        })();
+      }}
+    >
+      <input aria-label="Model name" autoFocus value={name} onChange={(e) => setName(e.target.value)} onKeyDown={(e) => e.key === 'Escape' && onDone()} className="rounded border border-rule bg-paper px-2 py-0.5 text-sm" />
+      <span className="flex gap-1">
+        <Button type="submit" className="text-xs">
+          Save name
+        </Button>
+        <Button tone="quiet" type="button" className="text-xs" onClick={onDone}>
+          Cancel
+        </Button>
+      </span>
+      {error && <span role="alert" className="text-xs text-odds">{error}</span>}
+    </form>
   );
 }
 
