@@ -28,7 +28,7 @@ export function ModelShelf({ projectId, modelId, readOnly = false }: { projectId
   const [dragging, setDragging] = useState(false);
   const [doomed, setDoomed] = useState<ModelRow>();
   const [renaming, setRenaming] = useState<string>();
-  useHotkeys({ i: () => picker.current?.click() });
+  useHotkeys({ i: () => !readOnly && picker.current?.click() });
 
   const importFiles = async (files: FileList | File[]) => {
     for (const file of Array.from(files)) {
@@ -58,7 +58,7 @@ export function ModelShelf({ projectId, modelId, readOnly = false }: { projectId
   const onDrop = (e: DragEvent) => {
     e.preventDefault();
     setDragging(false);
-    if (e.dataTransfer.files.length) void importFiles(e.dataTransfer.files);
+    if (e.dataTransfer.files.length && !readOnly) void importFiles(e.dataTransfer.files);
   };
 
   return (
@@ -66,7 +66,7 @@ export function ModelShelf({ projectId, modelId, readOnly = false }: { projectId
       aria-label="Models"
       onDragOver={(e) => {
         e.preventDefault();
-        setDragging(true);
+        if (!readOnly) setDragging(true);
       }}
       onDragLeave={() => setDragging(false)}
       onDrop={onDrop}
@@ -74,7 +74,7 @@ export function ModelShelf({ projectId, modelId, readOnly = false }: { projectId
     >
       <div className="flex items-center justify-between">
         <h2 className="text-xs font-semibold tracking-wide text-ink-soft uppercase">Models</h2>
-        <Button onClick={() => picker.current?.click()}>
+        <Button onClick={() => picker.current?.click()} disabled={readOnly} title={readOnly ? 'Viewers cannot import into a team project' : undefined}>
           Import <Kbd>i</Kbd>
         </Button>
         <input
@@ -90,7 +90,7 @@ export function ModelShelf({ projectId, modelId, readOnly = false }: { projectId
           }}
         />
       </div>
-      <p className="text-[11px] text-ink-faint">Drop a model file (.sheaf.json), a CSV of simplices or an OBJ/OFF mesh here.</p>
+      {!readOnly && <p className="text-[11px] text-ink-faint">Drop a model file (.sheaf.json), a CSV of simplices or an OBJ/OFF mesh here.</p>}
       {progress && (
         <div data-testid="import-progress">
           <p className="mb-1 truncate text-xs">Importing {progress.file} · {progress.phase}</p>
@@ -98,7 +98,7 @@ export function ModelShelf({ projectId, modelId, readOnly = false }: { projectId
         </div>
       )}
       {problems && <ProblemList title={`${problems.file} was not imported; nothing saved was changed.`} problems={problems.list} />}
-      {models.data?.length === 0 && <p className="text-sm text-ink-soft">No models yet. Import one to begin.</p>}
+      {models.data?.length === 0 && <p className="text-sm text-ink-soft">{readOnly ? 'No models in this project yet.' : 'No models yet. Import one to begin.'}</p>}
       <ul className="min-h-0 flex-1 space-y-1 overflow-auto">
         {models.data?.map((m) => (
           <li key={m.id} className={`group rounded px-2 py-1.5 ${m.id === modelId ? 'bg-glued-soft' : 'hover:bg-rule-soft'}`}>
