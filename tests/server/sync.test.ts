@@ -1,6 +1,7 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { ChangeInput, PullResponse, PushResponse } from '../../shared/sync';
+import { DocumentSchema } from '../../server/db/entities';
 import { bearer, makeCrew, startTestServer, type Crew, type TestServer } from './helpers';
 
 let t: TestServer;
@@ -139,7 +140,7 @@ describe('replaying a change id', () => {
     expect(again.accepted).toEqual(first.accepted);
     expect(againInBatch.accepted).toEqual([first.accepted[0], first.accepted[0]]);
     expect(again.revision).toBe(first.revision);
-    const rows = await t.server.dataSource.query('SELECT version FROM documents WHERE docId = ?', [doc]);
+    const rows = await t.server.dataSource.getRepository(DocumentSchema).find({ select: { version: true }, where: { docId: doc } });
     expect(rows).toEqual([{ version: 1 }]);
   });
 
