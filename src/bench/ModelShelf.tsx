@@ -7,6 +7,7 @@ import { useHotkeys } from '../app/useHotkeys';
 import type { Progress } from '../compute/computeService';
 import { deleteModel, loadModelText, renameModel, type ModelRow } from '../store';
 import { recordModelDeleted, recordModelSaved } from '../sync/recordChange';
+import { useSyncState } from '../team/teamClient';
 import { Button } from '../ui/Button';
 import { ConfirmDialog } from '../ui/ConfirmDialog';
 import { Kbd } from '../ui/Kbd';
@@ -28,6 +29,7 @@ export function ModelShelf({ projectId, modelId, readOnly = false }: { projectId
   const [dragging, setDragging] = useState(false);
   const [doomed, setDoomed] = useState<ModelRow>();
   const [renaming, setRenaming] = useState<string>();
+  const linked = !!useSyncState(projectId).data?.link;
   useHotkeys({ i: () => !readOnly && picker.current?.click() });
 
   const importFiles = async (files: FileList | File[]) => {
@@ -141,7 +143,7 @@ export function ModelShelf({ projectId, modelId, readOnly = false }: { projectId
       <ConfirmDialog
         open={!!doomed}
         title={`Delete “${doomed?.name}”?`}
-        body="All its versions and runs are removed from this machine."
+        body={linked ? 'All its versions, runs and readings are removed from this machine, and the model from the team project at the next sync.' : 'All its versions, runs and readings are removed from this machine.'}
         confirm="Delete model"
         onClose={() => setDoomed(undefined)}
         onConfirm={() => {
