@@ -88,8 +88,10 @@ export async function syncProject(db: GluefieldDb, api: Api, projectId: string):
         const local = row.deleted ? null : await localContent(db, api, link, row.docId, row.kind);
         const baseVersion = baseVersionFor(row, link.docs);
         if (!local) {
-          // Made and deleted here before the server saw it: nothing to tell.
-          if (baseVersion === 0) gone.push(row.seq!);
+          // Made and deleted here before any push carried it: nothing to tell. Once a push carried it
+          // (its answer may have been lost), the deletion goes under the same changeId: a server that
+          // took the create answers with it, and the tombstone queued after it follows on that version.
+          if (baseVersion === 0 && row.sentAt === undefined) gone.push(row.seq!);
           else sent.push({ row, change: { changeId: row.changeId, docId: row.docId, kind: row.kind, baseVersion, deleted: true }, summary: { name: row.name ?? row.docId, version: baseVersion, bytes: null, cells: null, who: 'you', when: new Date(row.createdAt).toISOString(), deleted: true } });
           continue;
         }
@@ -189,7 +191,8 @@ export async function settleConflict(db: GluefieldDb, api: Api | null, projectId
     await db.outbox.where('[projectId+docId]').equals([projectId, docId]).delete();
     await db.syncLinks.put({ ...link, docs, revision, conflicts: link.conflicts.filter((x) => x.docId !== docId) });
     for (const p of plan.push) {
-      await db.outbox.add({ projectId, docId: p.docId, kind: p.kind, changeId: p.changeId, baseVersion: p.baseVersion, createdAt: Date.now() });
+      const tombstone = p.deleted ? { deleted: true as const, name: c.mineSummary.name } : {};
+      await db.outbox.add({ projectId, docId: p.docId, kind: p.kind, changeId: p.changeId, baseVersion: p.baseVersion, createdAt: Date.now(), ...tombstone });
     }
   });
 }

@@ -166,6 +166,22 @@ describe('model renames and deletions', () => {
     expect((await ada.api.request<{ revision: number }>('GET', `/api/projects/${remoteId}/changes?since=0`)).revision).toBe(before);
   });
 
+  test('a model whose create was taken by the server but whose answer was lost is still deleted there', async () => {
+    const { ada, pa, remoteId } = await sharedProject();
+    const m = await saveNewModel(ada.db, newModel(pa, ringText(3), 'Short-lived'));
+    await recordModelSaved(ada.db, m);
+    // The push reaches the server, the answer never comes back: the row stays, marked sent.
+    const [row] = await ada.db.outbox.where('[projectId+docId]').equals([pa, m.id]).toArray();
+    await ada.api.request('POST', `/api/projects/${remoteId}/changes`, { changes: [{ changeId: row.changeId, docId: m.id, kind: 'model', baseVersion: 0, body: { name: m.name, text: ringText(3) } }] });
+    await ada.db.outbox.put({ ...row, sentAt: Date.now() });
+    await deleteModel(ada.db, m.id);
+    await recordModelDeleted(ada.db, m);
+    await syncProject(ada.db, ada.api, pa);
+    const pulled = await ada.api.request<{ changes: { docId: string; deleted: boolean }[] }>('GET', `/api/projects/${remoteId}/changes?since=0`);
+    expect(pulled.changes.find((c) => c.docId === m.id)?.deleted).toBe(true);
+    expect(await pendingCount(ada.db, pa)).toBe(0);
+  });
+
   test('deleting a model someone else edited is a conflict; taking theirs brings the model back with its readings', async () => {
     const { ada, ben, pa, pb, model } = await sharedProject();
     const r = await saveReadings(ada.db, { modelId: model.id, name: 'week 1', text: readingsText([1]), count: 1 });
@@ -214,6 +230,19 @@ describe('model renames and deletions', () => {
     expect((await syncProject(ben.db, ben.api, pb)).pushed).toBe(1);
     await syncProject(ada.db, ada.api, pa);
     expect(await loadModelText(ada.db, model.id)).toBe(benText);
+
+    // Now Ada deletes it again and Ben renames it: Ada keeps her deletion, on top of Ben's version.
+    await deleteModel(ada.db, model.id);
+    await recordModelDeleted(ada.db, model);
+    await recordModelSaved(ben.db, await renameModel(ben.db, model.id, 'Ring (kept)'));
+    await syncProject(ben.db, ben.api, pb);
+    expect((await syncProject(ada.db, ada.api, pa)).conflicts).toBe(1);
+    await settleConflict(ada.db, ada.api, pa, model.id, 'keep-mine');
+    const [queued] = await ada.db.outbox.where('projectId').equals(pa).toArray();
+    expect(queued).toMatchObject({ deleted: true, name: 'Ring', baseVersion: 4 });
+    expect((await syncProject(ada.db, ada.api, pa)).pushed).toBe(1);
+    await syncProject(ben.db, ben.api, pb);
+    expect(await listModels(ben.db, pb)).toEqual([]);
   });
 
   test('keep both keeps my content in the copy and the server\u2019s in the original', async () => {
