@@ -22,6 +22,7 @@ test('a new account is registered through the account panel; a bad server addres
   await server.getByLabel('Team server address').fill('ftp://files.example.org');
   await server.getByRole('button', { name: 'Use' }).click();
   await expect.poll(() => server.getByRole('alert').textContent()).toContain('Team server address: must start with http:// or https://');
+  await screenshot(page, 'account-panel-server-address');
   await server.getByLabel('Team server address').fill('');
   await server.getByRole('button', { name: 'Use' }).click();
   await expect.poll(() => server.getByRole('status').textContent()).toBe('Signing in goes to this site.');
