@@ -32,7 +32,8 @@ export function BenchScreen() {
   const [tab, setTab] = useState<Tab>('sketch');
   const [runId, setRunId] = useState<string>();
   const [chosen, setChosen] = useState<BasisChoice>();
-  const readOnly = useReadOnly(projectId);
+  const viewer = useReadOnly(projectId);
+  const readOnly = viewer !== false;
   useHotkeys(useMemo(() => ({ '1': () => setTab('sketch'), '2': () => setTab('ledger'), '3': () => setTab('editor') }), []));
 
   const run: RunRecord | undefined = (runs.data as RunRecord[] | undefined)?.find((r) => r.id === runId) ?? (runs.data?.[0] as RunRecord | undefined);
@@ -93,9 +94,9 @@ export function BenchScreen() {
             ))}
           </div>
         </div>
-        {readOnly && <ReadOnlyBanner />}
+        {viewer === true && <ReadOnlyBanner />}
         <div className="min-h-0 flex-1">
-          {!modelId && <EmptyBench readOnly={readOnly} />}
+          {!modelId && <EmptyBench readOnly={viewer === true} />}
           {modelId && !m && <p className="p-4 text-ink-soft">Opening the model…</p>}
           {m && tab === 'sketch' && (sketch.data ? <Sketch data={sketch.data} paint={paint} /> : <p className="p-4 text-ink-soft">Drawing…</p>)}
           {m && tab === 'ledger' && <CellLedger modelId={m.id} version={m.version} cells={m.cells} critical={run?.modelVersion === m.version ? run?.critical : undefined} values={ledgerValues} />}

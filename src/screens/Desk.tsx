@@ -105,7 +105,7 @@ function ProjectItem({ project, onDelete }: { project: ProjectRow; onDelete(): v
   const models = useQuery({ queryKey: ['models', project.id], queryFn: () => listModels(db, project.id) });
   const [editing, setEditing] = useState(false);
   const [name, setName] = useState(project.name);
-  const readOnly = useReadOnly(project.id);
+  const readOnly = useReadOnly(project.id) !== false;
   const rename = useMutation({
     mutationFn: async (n: string) => {
       const p = await renameProject(db, project.id, n);

@@ -4,9 +4,13 @@ import { useSyncState } from './teamClient';
  * Whether the signed-in user only reads this project: a viewer on the team
  * server. The server would refuse their pushes (403), so the screens stop
  * the edit before it is made instead of letting it pile up unsent.
+ * Undefined until the project's link is read: callers keep writes off
+ * until then (`!== false`) and show the banner only for a known viewer.
  */
-export function useReadOnly(projectId: string): boolean {
-  return useSyncState(projectId).data?.link?.role === 'viewer';
+export function useReadOnly(projectId: string): boolean | undefined {
+  const s = useSyncState(projectId);
+  if (!s.data) return undefined;
+  return s.data.link?.role === 'viewer';
 }
 
 /** Says plainly why the bench's import, edit, save and run controls are off. */

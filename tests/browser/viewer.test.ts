@@ -65,7 +65,8 @@ test('a viewer sees a read-only bench that says why, with import, editing, savin
   });
   expect(pending).toBe(0);
   await v.page.goto(inject('appUrl'));
-  await expect.poll(() => v.page.locator(`a[href="/p/${id}"]`).count(), { timeout: 20_000 }).toBe(1);
+  const row = v.page.locator('li', { has: v.page.locator(`a[href="/p/${id}"]`) });
+  await expect.poll(() => row.getByTestId('sync-state').getAttribute('data-state'), { timeout: 20_000 }).toBe('in-step');
   expect(await v.page.getByRole('button', { name: /^Rename Ridge-line survey/ }).count()).toBe(0);
 
   const e = await newPage(browser);
