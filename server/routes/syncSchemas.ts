@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { DOC_KINDS, type ChangeInput } from '../../shared/sync/types';
+import { readingsProblems } from './readingsBody';
 
 const syncId = z.string().min(1).max(128).regex(/^[A-Za-z0-9._:@-]+$/, { message: 'ids use letters, digits and . _ : @ -' });
 
@@ -28,6 +29,9 @@ export const changeSchema = z
     }
     if (c.kind === 'run' && !c.deleted && !provenance.safeParse((c.body as { provenance?: unknown } | null)?.provenance).success) {
       ctx.addIssue({ code: 'custom', path: ['body', 'provenance'], message: 'a run needs provenance {engineVersion, method, field, modelHash, ranAt}' });
+    }
+    if (c.kind === 'readings' && !c.deleted) {
+      for (const p of readingsProblems(c.body, c.uploadId)) ctx.addIssue({ code: 'custom', path: p.path, message: p.message });
     }
   }) satisfies z.ZodType<ChangeInput>;
 

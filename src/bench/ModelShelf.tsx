@@ -5,7 +5,9 @@ import type { Problem } from '../../shared/engine';
 import { appDb } from '../app/db';
 import { useHotkeys } from '../app/useHotkeys';
 import type { Progress } from '../compute/computeService';
-import { deleteModel, loadModelText, type ModelRow } from '../store';
+import { deleteModel, loadModelText, renameModel, type ModelRow } from '../store';
+import { recordModelDeleted, recordModelSaved } from '../sync/recordChange';
+import { useSyncState } from '../team/teamClient';
 import { Button } from '../ui/Button';
 import { ConfirmDialog } from '../ui/ConfirmDialog';
 import { Kbd } from '../ui/Kbd';
@@ -17,7 +19,7 @@ import { useModels } from './useModelData';
 const ACCEPT = '.json,.csv,.tsv,.txt,.obj,.off';
 
 /** The project's models, with import by picker or drag-and-drop and export. */
-export function ModelShelf({ projectId, modelId }: { projectId: string; modelId?: string }) {
+export function ModelShelf({ projectId, modelId, readOnly = false }: { projectId: string; modelId?: string; readOnly?: boolean }) {
   const models = useModels(projectId);
   const qc = useQueryClient();
   const navigate = useNavigate();
@@ -26,7 +28,9 @@ export function ModelShelf({ projectId, modelId }: { projectId: string; modelId?
   const [problems, setProblems] = useState<{ file: string; list: Problem[] }>();
   const [dragging, setDragging] = useState(false);
   const [doomed, setDoomed] = useState<ModelRow>();
-  useHotkeys({ i: () => picker.current?.click() });
+  const [renaming, setRenaming] = useState<string>();
+  const linked = !!useSyncState(projectId).data?.link;
+  useHotkeys({ i: () => !readOnly && picker.current?.click() });
 
   const importFiles = async (files: FileList | File[]) => {
     for (const file of Array.from(files)) {
@@ -56,7 +60,7 @@ export function ModelShelf({ projectId, modelId }: { projectId: string; modelId?
   const onDrop = (e: DragEvent) => {
     e.preventDefault();
     setDragging(false);
-    if (e.dataTransfer.files.length) void importFiles(e.dataTransfer.files);
+    if (e.dataTransfer.files.length && !readOnly) void importFiles(e.dataTransfer.files);
   };
 
   return (
@@ -64,7 +68,7 @@ export function ModelShelf({ projectId, modelId }: { projectId: string; modelId?
       aria-label="Models"
       onDragOver={(e) => {
         e.preventDefault();
-        setDragging(true);
+        if (!readOnly) setDragging(true);
       }}
       onDragLeave={() => setDragging(false)}
       onDrop={onDrop}
@@ -72,7 +76,7 @@ export function ModelShelf({ projectId, modelId }: { projectId: string; modelId?
     >
       <div className="flex items-center justify-between">
         <h2 className="text-xs font-semibold tracking-wide text-ink-soft uppercase">Models</h2>
-        <Button onClick={() => picker.current?.click()}>
+        <Button onClick={() => picker.current?.click()} disabled={readOnly} title={readOnly ? 'Viewers cannot import into a team project' : undefined}>
           Import <Kbd>i</Kbd>
         </Button>
         <input
@@ -88,7 +92,7 @@ export function ModelShelf({ projectId, modelId }: { projectId: string; modelId?
           }}
         />
       </div>
-      <p className="text-[11px] text-ink-faint">Drop a model file (.sheaf.json), a CSV of simplices or an OBJ/OFF mesh here.</p>
+      {!readOnly && <p className="text-[11px] text-ink-faint">Drop a model file (.sheaf.json), a CSV of simplices or an OBJ/OFF mesh here.</p>}
       {progress && (
         <div data-testid="import-progress">
           <p className="mb-1 truncate text-xs">Importing {progress.file} · {progress.phase}</p>
@@ -96,23 +100,42 @@ export function ModelShelf({ projectId, modelId }: { projectId: string; modelId?
         </div>
       )}
       {problems && <ProblemList title={`${problems.file} was not imported; nothing saved was changed.`} problems={problems.list} />}
-      {models.data?.length === 0 && <p className="text-sm text-ink-soft">No models yet. Import one to begin.</p>}
+      {models.data?.length === 0 && <p className="text-sm text-ink-soft">{readOnly ? 'No models in this project yet.' : 'No models yet. Import one to begin.'}</p>}
       <ul className="min-h-0 flex-1 space-y-1 overflow-auto">
         {models.data?.map((m) => (
           <li key={m.id} className={`group rounded px-2 py-1.5 ${m.id === modelId ? 'bg-glued-soft' : 'hover:bg-rule-soft'}`}>
-            <Link to={`/p/${projectId}/m/${m.id}`} className="block">
-              <span className="block truncate text-sm font-medium">{m.name}</span>
-              <span className="num block text-[11px] text-ink-faint">
-                {m.cells.reduce((a, b) => a + b, 0).toLocaleString()} cells · {m.field} · v{m.version}
-              </span>
-            </Link>
+            {renaming === m.id ? (
+              <RenameForm
+                model={m}
+                onDone={() => {
+                  setRenaming(undefined);
+                  void qc.invalidateQueries({ queryKey: ['models', projectId] });
+                  void qc.invalidateQueries({ queryKey: ['model', m.id] });
+                  void qc.invalidateQueries({ queryKey: ['sync', projectId] });
+                }}
+              />
+            ) : (
+              <Link to={`/p/${projectId}/m/${m.id}`} className="block">
+                <span className="block truncate text-sm font-medium">{m.name}</span>
+                <span className="num block text-[11px] text-ink-faint">
+                  {m.cells.reduce((a, b) => a + b, 0).toLocaleString()} cells · {m.field} · v{m.version}
+                </span>
+              </Link>
+            )}
             <div className="mt-1 hidden gap-1 group-hover:flex group-focus-within:flex">
               <Button tone="quiet" className="text-xs" onClick={() => void exportModel(m)}>
                 Export
               </Button>
-              <Button tone="quiet" className="text-xs" onClick={() => setDoomed(m)}>
-                Delete
-              </Button>
+              {!readOnly && (
+                <>
+                  <Button tone="quiet" className="text-xs" onClick={() => setRenaming(m.id)} aria-label={`Rename ${m.name}`}>
+                    Rename
+                  </Button>
+                  <Button tone="quiet" className="text-xs" onClick={() => setDoomed(m)} aria-label={`Delete ${m.name}`}>
+                    Delete
+                  </Button>
+                </>
+              )}
             </div>
           </li>
         ))}
@@ -120,20 +143,56 @@ export function ModelShelf({ projectId, modelId }: { projectId: string; modelId?
       <ConfirmDialog
         open={!!doomed}
         title={`Delete “${doomed?.name}”?`}
-        body="All its versions and runs are removed from this machine."
+        body={linked ? 'All its versions, runs and readings are removed from this machine, and the model from the team project at the next sync.' : 'All its versions, runs and readings are removed from this machine.'}
         confirm="Delete model"
         onClose={() => setDoomed(undefined)}
         onConfirm={() => {
           const m = doomed;
           setDoomed(undefined);
           if (m)
-            void deleteModel(appDb(), m.id).then(() => {
+            void (async () => {
+              await deleteModel(appDb(), m.id);
+              await recordModelDeleted(appDb(), m);
               void qc.invalidateQueries({ queryKey: ['models', projectId] });
+              void qc.invalidateQueries({ queryKey: ['sync', projectId] });
               if (m.id === modelId) navigate(`/p/${projectId}`);
-            });
+            })();
         }}
       />
     </section>
+  );
+}
+
+function RenameForm({ model, onDone }: { model: ModelRow; onDone(): void }) {
+  const [name, setName] = useState(model.name);
+  const [error, setError] = useState<string>();
+  return (
+    <form
+      className="flex flex-col gap-1"
+      onSubmit={(e) => {
+        e.preventDefault();
+        void (async () => {
+          try {
+            const next = await renameModel(appDb(), model.id, name);
+            await recordModelSaved(appDb(), next);
+            onDone();
+          } catch (err) {
+            setError((err as Error).message);
+          }
+        })();
+      }}
+    >
+      <input aria-label="Model name" autoFocus value={name} onChange={(e) => setName(e.target.value)} onKeyDown={(e) => e.key === 'Escape' && onDone()} className="rounded border border-rule bg-paper px-2 py-0.5 text-sm" />
+      <span className="flex gap-1">
+        <Button type="submit" className="text-xs">
+          Save name
+        </Button>
+        <Button tone="quiet" type="button" className="text-xs" onClick={onDone}>
+          Cancel
+        </Button>
+      </span>
+      {error && <span role="alert" className="text-xs text-odds">{error}</span>}
+    </form>
   );
 }
 

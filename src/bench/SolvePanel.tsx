@@ -21,7 +21,7 @@ const PHASES: Record<string, string> = {
 type FieldChoice = 'model' | 'rational' | 'real' | 'prime';
 
 /** "Reduce & solve": settings, start, live progress by phase, cancel. */
-export function SolvePanel({ modelId, modelField, onFinished }: { modelId: string; modelField: string; onFinished(run: RunRecord): void }) {
+export function SolvePanel({ modelId, modelField, onFinished, readOnly = false }: { modelId: string; modelField: string; onFinished(run: RunRecord): void; readOnly?: boolean }) {
   const qc = useQueryClient();
   const [choice, setChoice] = useState<FieldChoice>('model');
   const [prime, setPrime] = useState('32003');
@@ -44,7 +44,7 @@ export function SolvePanel({ modelId, modelField, onFinished }: { modelId: strin
   }, [choice, modelField, prime, tolerance]);
 
   const start = useCallback(() => {
-    if (handle.current || typeof field === 'string') return;
+    if (handle.current || typeof field === 'string' || readOnly) return;
     const settings: RunSettings = { method, field, splitBlocks: split };
     setMessage(undefined);
     setProgress({ phase: 'read', fraction: 0 });
@@ -64,7 +64,7 @@ export function SolvePanel({ modelId, modelField, onFinished }: { modelId: strin
         handle.current = null;
         setProgress(undefined);
       });
-  }, [field, method, split, modelId, qc, onFinished]);
+  }, [field, method, split, modelId, qc, onFinished, readOnly]);
   const cancel = useCallback(() => handle.current?.cancel(), []);
   useHotkeys(useMemo(() => ({ 'mod+enter': start, escape: cancel }), [start, cancel]));
 
@@ -72,6 +72,7 @@ export function SolvePanel({ modelId, modelField, onFinished }: { modelId: strin
   return (
     <section aria-label="Reduce and solve" className="space-y-3 border-b border-rule p-3">
       <h2 className="text-xs font-semibold tracking-wide text-ink-soft uppercase">Reduce &amp; solve</h2>
+      {readOnly && <p className="text-xs text-ink-soft">Viewers read the runs already made; a new run would be saved to the project.</p>}
       <div className="grid grid-cols-[5rem_1fr] items-center gap-x-2 gap-y-2 text-sm">
         <label htmlFor="solve-field">Field</label>
         <select id="solve-field" value={choice} onChange={(e) => setChoice(e.target.value as FieldChoice)} className="w-full min-w-0 rounded border border-rule bg-sheet px-1 py-0.5" disabled={running}>
@@ -105,7 +106,7 @@ export function SolvePanel({ modelId, modelField, onFinished }: { modelId: strin
       </div>
       {typeof field === 'string' && <p className="text-xs text-odds">{field}</p>}
       <div className="flex items-center gap-2">
-        <Button tone="primary" onClick={start} disabled={running || typeof field === 'string'} data-testid="solve-start">
+        <Button tone="primary" onClick={start} disabled={running || typeof field === 'string' || readOnly} data-testid="solve-start" title={readOnly ? 'Viewers cannot run: a run is saved to the project' : undefined}>
           Reduce &amp; solve <Kbd>mod+enter</Kbd>
         </Button>
         <Button onClick={cancel} disabled={!running} data-testid="solve-cancel">

@@ -20,7 +20,7 @@ const FORM_LIMIT = 2_000_000;
  * condition on every diamond) as you type. Saving makes a new version; the
  * previous ones stay, and every edit can be undone.
  */
-export function MapsEditor({ model }: { model: ModelRow }) {
+export function MapsEditor({ model, readOnly = false }: { model: ModelRow; readOnly?: boolean }) {
   const qc = useQueryClient();
   const [base, setBase] = useState<ModelFile>();
   const [tooLarge, setTooLarge] = useState(false);
@@ -62,7 +62,7 @@ export function MapsEditor({ model }: { model: ModelRow }) {
     return () => clearTimeout(t);
   }, [built]);
 
-  useHotkeys(useMemo(() => ({ 'mod+z': draft.undo, 'mod+shift+z': draft.redo, 'mod+y': draft.redo }), [draft.undo, draft.redo]));
+  useHotkeys(useMemo(() => ({ 'mod+z': draft.undo, 'mod+shift+z': draft.redo, 'mod+y': draft.redo }), [draft.undo, draft.redo]), !readOnly);
 
   if (tooLarge) return <p className="p-4 text-sm text-ink-soft">This model is too large to edit in forms. Export it, edit the file, and import it again as a new model.</p>;
   if (!draft.value || !base) return <p className="p-4 text-sm text-ink-soft">Opening the model…</p>;
@@ -72,7 +72,7 @@ export function MapsEditor({ model }: { model: ModelRow }) {
     draft.set({ ...d, ...patch });
   };
   const save = async () => {
-    if (!built?.model || problems.length) return;
+    if (!built?.model || problems.length || readOnly) return;
     const outcome = await engine().replaceModel(model.id, `${model.name}.sheaf.json`, JSON.stringify(built.model, null, 1), 'editor');
     if (!outcome.ok) return setProblems(outcome.problems);
     ownSave.current = `${model.id}@${outcome.model.version}`;
@@ -83,7 +83,8 @@ export function MapsEditor({ model }: { model: ModelRow }) {
   };
 
   return (
-    <div className="h-full space-y-4 overflow-auto p-4 text-sm">
+    // A disabled fieldset switches off every input and button inside it at once.
+    <fieldset disabled={readOnly} aria-label="Stalks and maps" className="h-full min-w-0 space-y-4 overflow-auto p-4 text-sm">
       <div className="flex flex-wrap items-center gap-2">
         <Button onClick={draft.undo} disabled={!draft.canUndo}>
           Undo <Kbd>mod+z</Kbd>
@@ -203,6 +204,6 @@ export function MapsEditor({ model }: { model: ModelRow }) {
           Add map
         </Button>
       </fieldset>
-    </div>
+    </fieldset>
   );
 }

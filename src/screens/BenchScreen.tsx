@@ -14,6 +14,7 @@ import { SolvePanel } from '../bench/SolvePanel';
 import { useModel, useRuns, useSketch } from '../bench/useModelData';
 import type { RunRecord } from '../compute/computeService';
 import { listProjects } from '../store';
+import { ReadOnlyBanner, useReadOnly } from '../team/ReadOnlyBanner';
 import { ProjectSyncControls, SyncBadge } from '../team/SyncBadge';
 import { Kbd } from '../ui/Kbd';
 import { engine } from '../workers/engineClient';
@@ -33,6 +34,8 @@ export function BenchScreen() {
   const [tab, setTab] = useState<Tab>('sketch');
   const [runId, setRunId] = useState<string>();
   const [chosen, setChosen] = useState<BasisChoice>();
+  const viewer = useReadOnly(projectId);
+  const readOnly = viewer !== false;
   useHotkeys(useMemo(() => ({ '1': () => setTab('sketch'), '2': () => setTab('ledger'), '3': () => setTab('editor') }), []));
 
   const run: RunRecord | undefined = (runs.data as RunRecord[] | undefined)?.find((r) => r.id === runId) ?? (runs.data?.[0] as RunRecord | undefined);
@@ -61,7 +64,7 @@ export function BenchScreen() {
     <div className="grid h-full grid-cols-[15rem_1fr_23rem]">
       <div className="flex min-h-0 flex-col">
         <div className="min-h-0 flex-1">
-          <ModelShelf projectId={projectId} modelId={modelId} />
+          <ModelShelf projectId={projectId} modelId={modelId} readOnly={readOnly} />
         </div>
         <KitShelf projectId={projectId} selected={kitResultId} />
       </div>
@@ -98,15 +101,16 @@ export function BenchScreen() {
             ))}
           </div>
         </div>
+        {viewer === true && <ReadOnlyBanner />}
         <div className="min-h-0 flex-1">
           {kitResultId && <SavedKitResult key={kitResultId} projectId={projectId} id={kitResultId} />}
-          {!modelId && !kitResultId && <EmptyBench />}
+          {!modelId && !kitResultId && <EmptyBench readOnly={viewer === true} />}
           {modelId && !m && <p className="p-4 text-ink-soft">Opening the model…</p>}
           {m && tab === 'sketch' && (sketch.data ? <Sketch data={sketch.data} paint={paint} /> : <p className="p-4 text-ink-soft">Drawing…</p>)}
           {m && tab === 'ledger' && <CellLedger modelId={m.id} version={m.version} cells={m.cells} critical={run?.modelVersion === m.version ? run?.critical : undefined} values={ledgerValues} />}
           {m && tab === 'editor' && (
             <Suspense fallback={<p className="p-4 text-ink-soft">Opening the editor…</p>}>
-              <MapsEditor model={m} />
+              <MapsEditor model={m} readOnly={readOnly} />
             </Suspense>
           )}
         </div>
@@ -114,7 +118,7 @@ export function BenchScreen() {
       <aside className="flex min-h-0 min-w-0 flex-col overflow-x-hidden overflow-y-auto border-l border-rule bg-sheet">
         {m ? (
           <>
-            <SolvePanel modelId={m.id} modelField={m.field} onFinished={(r) => setRunId(r.id)} />
+            <SolvePanel modelId={m.id} modelField={m.field} onFinished={(r) => setRunId(r.id)} readOnly={readOnly} />
             {run ? <Findings run={run} modelName={m.name} chosen={chosen} onChoose={setChosen} /> : null}
             <RunHistory runs={(runs.data ?? []) as RunRecord[]} selected={run?.id} onSelect={setRunId} />
           </>
@@ -126,13 +130,19 @@ export function BenchScreen() {
   );
 }
 
-function EmptyBench() {
+function EmptyBench({ readOnly }: { readOnly: boolean }) {
   return (
     <div className="flex h-full items-center justify-center text-center text-ink-soft">
       <div>
         <p className="mb-1 text-ink">No model open.</p>
         <p className="text-sm">
-          Pick one on the left, or import a file (<Kbd>i</Kbd>) — a model file, a CSV of simplices, or an OBJ/OFF mesh.
+          {readOnly ? (
+            'Pick one on the left to read it.'
+          ) : (
+            <>
+              Pick one on the left, or import a file (<Kbd>i</Kbd>) — a model file, a CSV of simplices, or an OBJ/OFF mesh.
+            </>
+          )}
         </p>
       </div>
     </div>

@@ -6,6 +6,7 @@ import { useHotkeys } from '../app/useHotkeys';
 import { createProject, deleteProject, listModels, listProjects, renameProject, type ProjectRow } from '../store';
 import { unlinkProject } from '../sync/engine';
 import { recordProjectRenamed } from '../sync/recordChange';
+import { useReadOnly } from '../team/ReadOnlyBanner';
 import { ProjectSyncControls, SyncBadge } from '../team/SyncBadge';
 import { TeamProjects } from '../team/TeamProjects';
 import { Button } from '../ui/Button';
@@ -104,6 +105,7 @@ function ProjectItem({ project, onDelete }: { project: ProjectRow; onDelete(): v
   const models = useQuery({ queryKey: ['models', project.id], queryFn: () => listModels(db, project.id) });
   const [editing, setEditing] = useState(false);
   const [name, setName] = useState(project.name);
+  const readOnly = useReadOnly(project.id) !== false;
   const rename = useMutation({
     mutationFn: async (n: string) => {
       const p = await renameProject(db, project.id, n);
@@ -141,7 +143,7 @@ function ProjectItem({ project, onDelete }: { project: ProjectRow; onDelete(): v
       )}
       <SyncBadge projectId={project.id} />
       <ProjectSyncControls projectId={project.id} />
-      {!editing && (
+      {!editing && !readOnly && (
         <Button tone="quiet" onClick={() => setEditing(true)} aria-label={`Rename ${project.name}`}>
           Rename
         </Button>

@@ -1,6 +1,8 @@
 import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
 import type { MailroomMessage } from '../../shared/api/types';
+import { appDb } from '../app/db';
+import { serverBase } from '../sync/api';
 import { Button } from '../ui/Button';
 
 /**
@@ -12,7 +14,7 @@ export function Mailroom() {
   const mail = useQuery({
     queryKey: ['mailroom'],
     queryFn: async (): Promise<MailroomMessage[]> => {
-      const res = await fetch('/api/mailroom');
+      const res = await fetch(`${await serverBase(appDb())}/api/mailroom`);
       if (res.status === 404) throw new Error('This server sends mail through a real relay; there is no local mailroom.');
       if (!res.ok) throw new Error(`The server answered ${res.status}.`);
       return ((await res.json()) as { messages: MailroomMessage[] }).messages;

@@ -41,6 +41,6 @@ export {
 } from './models';
 export { saveRun, listRuns, getRun, deleteRun, type NewRun } from './runs';
 export { getSetting, setSetting } from './settings';
-export { saveReadings, listReadings, loadReadingsText, deleteReadings, type NewReadings } from './readings';
+export { saveReadings, updateReadings, listReadings, loadReadingsText, deleteReadings, type NewReadings, type ReadingsUpdate } from './readings';
 export { seedDemoIfEmpty, DEMO_PROJECT_NAME, DEMO_SEEDED_KEY, type Summarize } from './seedDemo';
 export { saveKitResult, listKitResults, loadKitResult, loadKitInput, deleteKitResult, KIT_KINDS, type NewKitResult, type OpenedKitResult } from './kitResults';

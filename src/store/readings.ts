@@ -40,6 +40,34 @@ export async function saveReadings(db: GluefieldDb, input: NewReadings): Promise
   });
 }
 
+export interface ReadingsUpdate {
+  name?: string;
+  text?: string;
+  count?: number;
+}
+
+/** Rename a readings file or replace its text (with its count); checked and packed before anything is written. */
+export async function updateReadings(db: GluefieldDb, id: string, update: ReadingsUpdate): Promise<ReadingsRow> {
+  checkId(id, 'readings');
+  const name = update.name === undefined ? undefined : checkName(update.name, 'readings');
+  if (update.text !== undefined) checkText(update.text);
+  if ((update.text === undefined) !== (update.count === undefined)) throw new StoreError('invalid', 'a new readings text comes with its count');
+  if (update.count !== undefined && (!Number.isInteger(update.count) || update.count < 0)) throw new StoreError('invalid', 'the readings count must be a non-negative integer');
+  const packed = update.text === undefined ? undefined : await packText(update.text);
+  return writeTx(db, [db.readings], async () => {
+    const row = await db.readings.get(id);
+    if (!row) throw new StoreError('not-found', `readings ${id} not found`);
+    const next: ReadingsRow = {
+      ...row,
+      ...(name === undefined ? {} : { name }),
+      ...(packed === undefined ? {} : { packed, bytes: update.text!.length, count: update.count! }),
+      updatedAt: stamp(),
+    };
+    await db.readings.put(next);
+    return next;
+  });
+}
+
 /** A model's readings files, newest first. */
 export async function listReadings(db: GluefieldDb, modelId: string): Promise<ReadingsRow[]> {
   const rows = await db.readings.where('modelId').equals(modelId).toArray();

@@ -5,6 +5,7 @@
  */
 import type { AuthResponse, UserView } from '../../shared/api/types';
 import { getSetting, setSetting, type GluefieldDb } from '../store';
+import { checkServerAddress } from './serverAddress';
 
 export const SESSION_KEY = 'team.session';
 export const SERVER_KEY = 'team.server';
@@ -35,6 +36,18 @@ export async function saveSession(db: GluefieldDb, auth: Session | null): Promis
 /** The server's base URL; '' is the app's own origin (the server serves the app). */
 export async function serverBase(db: GluefieldDb): Promise<string> {
   return getSetting<string>(db, SERVER_KEY, '');
+}
+
+/**
+ * Store the team server's address, checked first (see `checkServerAddress`).
+ * A session belongs to the server that issued it, so this is refused while signed in.
+ */
+export async function setServerBase(db: GluefieldDb, input: string): Promise<string> {
+  const checked = checkServerAddress(input);
+  if (!checked.ok) throw new Error(checked.message);
+  if (await getSession(db)) throw new Error('Team server address: sign out before changing the server');
+  await setSetting(db, SERVER_KEY, checked.value);
+  return checked.value;
 }
 
 type Fetch = typeof fetch;

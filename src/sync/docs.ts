@@ -4,7 +4,7 @@
  */
 import { readModel } from '../../shared/engine';
 import type { ChangeInput, DocKind, SyncedDoc } from '../../shared/sync/types';
-import { deleteModel, deleteRun, loadModelText, renameModel, saveModelVersion, unpackText, type GluefieldDb, type ModelSource, type RunRow } from '../store';
+import { deleteModel, deleteReadings, deleteRun, loadModelText, packText, renameModel, saveModelVersion, unpackText, type GluefieldDb, type ModelSource, type ReadingsRow, type RunRow } from '../store';
 import { prepareNewModel, textId } from '../store/models';
 import type { Api } from './api';
 import { INLINE_TEXT_LIMIT } from './merge';
@@ -23,6 +23,15 @@ export interface ModelBody {
   text?: string;
   /** The demo seed sends the parsed model instead of its text. */
   model?: unknown;
+}
+
+/** A readings document's body. `text` inline for small files, else the change carries an `uploadId` of the gzip text. */
+export interface ReadingsBody {
+  modelId: string;
+  name: string;
+  count: number;
+  bytes: number;
+  text?: string;
 }
 
 /** The current local content of a document as a change (without id and base), or null when it is gone locally. */
@@ -57,6 +66,18 @@ export async function localContent(db: GluefieldDb, api: Api | null, link: SyncL
     };
     return { content: { docId, kind, body }, summary: { name: `run of ${r.modelId.slice(0, 8)} (${r.status})`, version: known, bytes: null, cells: r.report?.cells ?? null, who: 'you', when: new Date(r.createdAt).toISOString() } };
   }
+  if (kind === 'readings') {
+    const r = await db.readings.get(docId);
+    if (!r) return null;
+    const summary: DocSummary = { name: r.name, version: known, bytes: r.bytes, cells: null, who: 'you', when: new Date(r.updatedAt).toISOString() };
+    const body: ReadingsBody = { modelId: r.modelId, name: r.name, count: r.count, bytes: r.bytes };
+    if (r.bytes > INLINE_TEXT_LIMIT && api) {
+      const up = await api.upload(`/api/projects/${link.remoteId}/uploads`, r.packed, `${r.id}.readings.json.gz`);
+      return { content: { docId, kind, body, uploadId: up.id }, summary };
+    }
+    body.text = await unpackText(r.packed);
+    return { content: { docId, kind, body }, summary };
+  }
   return null;
 }
 
@@ -64,6 +85,7 @@ export async function localContent(db: GluefieldDb, api: Api | null, link: SyncL
 export function serverSummary(doc: SyncedDoc | null, whoById: (id: string) => string = (id) => id): DocSummary | null {
   if (!doc) return null;
   const b = (doc.body ?? {}) as Partial<ModelBody> & { status?: string };
+  if (doc.deleted) return { name: doc.docId, version: doc.version, bytes: null, cells: null, who: whoById(doc.updatedBy), when: doc.updatedAt, deleted: true };
   return {
     name: b.name ?? (doc.kind === 'run' ? `run (${b.status ?? '?'})` : doc.docId),
     version: doc.version,
@@ -75,7 +97,7 @@ export function serverSummary(doc: SyncedDoc | null, whoById: (id: string) => st
 }
 
 async function modelText(api: Api | null, doc: SyncedDoc): Promise<string | null> {
-  const b = (doc.body ?? {}) as Partial<ModelBody>;
+  const b = (doc.body ?? {}) as Partial<ModelBody> & Partial<ReadingsBody>;
   if (typeof b.text === 'string') return b.text;
   if (b.model !== undefined) return JSON.stringify(b.model);
   if (doc.uploadId && api) return unpackText(await api.download(`/api/uploads/${doc.uploadId}`));
@@ -92,19 +114,23 @@ function summarise(text: string) {
 /**
  * Write a server copy into the local store under `localId` (default: its
  * own id). Models get a new local text version, so older ones stay in the
- * model's history.
+ * model's history. Answers false when a run or readings document names a
+ * model this machine does not hold (yet: a pull may bring it later).
  */
-export async function adoptDoc(db: GluefieldDb, api: Api | null, link: SyncLinkRow, doc: SyncedDoc, localId: string = doc.docId): Promise<void> {
+export async function adoptDoc(db: GluefieldDb, api: Api | null, link: SyncLinkRow, doc: SyncedDoc, localId: string = doc.docId): Promise<boolean> {
   if (doc.kind === 'project') {
     const name = (doc.body as { name?: string } | null)?.name;
     const p = await db.projects.get(link.projectId);
     if (p && name && p.name !== name) await db.projects.put({ ...p, name, updatedAt: Date.now() });
-    return;
+    return true;
   }
   if (doc.kind === 'model') {
-    if (doc.deleted) return deleteModel(db, localId);
+    if (doc.deleted) {
+      await deleteModel(db, localId);
+      return true;
+    }
     const text = await modelText(api, doc);
-    if (text === null) return;
+    if (text === null) return true;
     const b = (doc.body ?? {}) as Partial<ModelBody>;
     const s = b.cells && b.cochainDims && b.field ? { field: b.field, cells: b.cells, cochainDims: b.cochainDims } : summarise(text);
     const source: ModelSource = b.source ?? 'model';
@@ -112,7 +138,7 @@ export async function adoptDoc(db: GluefieldDb, api: Api | null, link: SyncLinkR
     if (existing) {
       if (existing.hash !== b.hash || b.hash === undefined) await saveModelVersion(db, localId, { text, ...s, source });
       if (b.name && b.name !== existing.name) await renameModel(db, localId, b.name);
-      return;
+      return true;
     }
     const prepared = await prepareNewModel({ projectId: link.projectId, name: b.name ?? doc.docId, text, source, ...s });
     const model = { ...prepared.model, id: localId };
@@ -121,20 +147,49 @@ export async function adoptDoc(db: GluefieldDb, api: Api | null, link: SyncLinkR
       await db.models.add(model);
       await db.modelTexts.add(row);
     });
-    return;
+    return true;
   }
   if (doc.kind === 'run') {
-    if (doc.deleted) return deleteRun(db, localId);
+    if (doc.deleted) {
+      await deleteRun(db, localId);
+      return true;
+    }
     const b = doc.body as Partial<RunRow> & { report?: RunRow['report'] | null; error?: string | null };
-    if (!b?.modelId || !(await db.models.get(b.modelId))) return;
+    if (!b?.modelId) return true;
+    if (!(await db.models.get(b.modelId))) return false;
     const row: RunRow = {
       id: localId, projectId: link.projectId, modelId: b.modelId, modelVersion: b.modelVersion ?? 0, modelHash: b.modelHash ?? '',
       engineVersion: b.engineVersion ?? '', settings: b.settings as RunRow['settings'], status: b.status ?? 'done', ms: b.ms ?? 0,
       createdAt: typeof b.createdAt === 'number' ? b.createdAt : Date.parse(doc.updatedAt),
       ...(b.report ? { report: b.report } : {}), ...(b.error ? { error: b.error } : {}),
     };
-    await db.runs.put(row);
+    // Bases and critical cells never travel: keep the ones this machine computed.
+    const existing = await db.runs.get(localId);
+    await db.runs.put(existing ? { ...existing, ...row } : row);
+    return true;
   }
+  if (doc.kind === 'readings') {
+    if (doc.deleted) {
+      await deleteReadings(db, localId);
+      return true;
+    }
+    const b = (doc.body ?? {}) as Partial<ReadingsBody>;
+    if (!b.modelId) return true;
+    const model = await db.models.get(b.modelId);
+    if (!model) return false;
+    const text = await modelText(api, doc);
+    if (text === null) return true;
+    const packed = await packText(text);
+    const existing = await db.readings.get(localId);
+    const now = Date.now();
+    const row: ReadingsRow = {
+      id: localId, modelId: model.id, projectId: link.projectId, name: b.name ?? doc.docId, packed, bytes: text.length,
+      count: typeof b.count === 'number' ? b.count : 0, createdAt: existing?.createdAt ?? now, updatedAt: now,
+    };
+    await db.readings.put(row);
+    return true;
+  }
+  return true;
 }
 
 /** Keep-both: copy the local document to a new id (a separate copy the user keeps). Returns false when there is nothing to copy. */
@@ -154,6 +209,12 @@ export async function copyLocal(db: GluefieldDb, link: SyncLinkRow, docId: strin
     const r = await db.runs.get(docId);
     if (!r) return false;
     await db.runs.put({ ...r, id: newId });
+    return true;
+  }
+  if (kind === 'readings') {
+    const r = await db.readings.get(docId);
+    if (!r) return false;
+    await db.readings.put({ ...r, id: newId, name: `${r.name} (my copy)`, updatedAt: Date.now() });
     return true;
   }
   return false;

@@ -5,13 +5,16 @@
  */
 import type { ProjectView } from '../../shared/api/types';
 import { resolveConflict } from '../../shared/sync/resolveConflict';
-import type { ChangeInput, PullResponse, PushResponse, Resolution } from '../../shared/sync/types';
+import type { ChangeInput, DocKind, PullResponse, PushResponse, Resolution, SyncedDoc } from '../../shared/sync/types';
 import type { GluefieldDb } from '../store';
 import type { Api } from './api';
 import { adoptDoc, copyLocal, localContent } from './docs';
 import { baseVersionFor, decidePulled, foldPush } from './merge';
 import { PROJECT_DOC_ID, recordChange } from './recordChange';
 import type { DocSummary, OutboxRow, SyncLinkRow } from './rows';
+
+/** Kinds that belong to a model and are adopted only once the model is here. */
+const DEPENDENT = new Set<DocKind>(['run', 'readings']);
 
 const newLink = (projectId: string, remote: ProjectView): SyncLinkRow => ({
   projectId, remoteId: remote.id, role: remote.role, revision: 0, serverRevision: remote.revision, docs: {}, conflicts: [], lastSyncAt: null, lastError: null,
@@ -27,6 +30,7 @@ export async function linkProject(db: GluefieldDb, api: Api, projectId: string):
   await recordChange(db, projectId, PROJECT_DOC_ID, 'project');
   for (const m of await db.models.where('projectId').equals(projectId).toArray()) await recordChange(db, projectId, m.id, 'model');
   for (const r of await db.runs.where('projectId').equals(projectId).toArray()) await recordChange(db, projectId, r.id, 'run');
+  for (const r of await db.readings.where('projectId').equals(projectId).toArray()) await recordChange(db, projectId, r.id, 'readings');
   await syncProject(db, api, projectId);
   return (await db.syncLinks.get(projectId))!;
 }
@@ -81,11 +85,14 @@ export async function syncProject(db: GluefieldDb, api: Api, projectId: string):
       const sent: { row: OutboxRow; change: ChangeInput; summary: DocSummary }[] = [];
       const gone: number[] = [];
       for (const row of [...first.values()].slice(0, 200)) {
-        const local = await localContent(db, api, link, row.docId, row.kind);
+        const local = row.deleted ? null : await localContent(db, api, link, row.docId, row.kind);
         const baseVersion = baseVersionFor(row, link.docs);
         if (!local) {
-          if (baseVersion === 0) gone.push(row.seq!);
-          else sent.push({ row, change: { changeId: row.changeId, docId: row.docId, kind: row.kind, baseVersion, deleted: true }, summary: { name: row.docId, version: baseVersion, bytes: null, cells: null, who: 'you', when: null } });
+          // Made and deleted here before any push carried it: nothing to tell. Once a push carried it
+          // (its answer may have been lost), the deletion goes under the same changeId: a server that
+          // took the create answers with it, and the tombstone queued after it follows on that version.
+          if (baseVersion === 0 && row.sentAt === undefined) gone.push(row.seq!);
+          else sent.push({ row, change: { changeId: row.changeId, docId: row.docId, kind: row.kind, baseVersion, deleted: true }, summary: { name: row.name ?? row.docId, version: baseVersion, bytes: null, cells: null, who: 'you', when: new Date(row.createdAt).toISOString(), deleted: true } });
           continue;
         }
         sent.push({ row, change: { changeId: row.changeId, baseVersion, ...local.content } as ChangeInput, summary: local.summary });
@@ -105,13 +112,17 @@ export async function syncProject(db: GluefieldDb, api: Api, projectId: string):
       report.pushed += answer.accepted.length;
       report.conflicts += answer.conflicts.length;
     }
-    // Pull everything since the last revision.
+    // Pull everything since the last revision. Pull order is revision order, so a run or readings
+    // file can arrive before a later version of its model; those wait until their model is here.
+    let waiting: SyncedDoc[] = [];
     for (let round = 0; round < 1000; round++) {
       const res = await api.request<PullResponse>('GET', `/api/projects/${link.remoteId}/changes?since=${link.revision}`);
       const pendingDocs = new Set((await db.outbox.where('projectId').equals(projectId).toArray()).map((r) => r.docId));
       const docs = { ...link.docs };
       const conflicts = [...link.conflicts];
-      for (const doc of res.changes) {
+      const retry = waiting;
+      waiting = [];
+      for (const doc of [...res.changes.filter((d) => !DEPENDENT.has(d.kind)), ...retry, ...res.changes.filter((d) => DEPENDENT.has(d.kind))]) {
         const ci = conflicts.findIndex((c) => c.docId === doc.docId);
         const action = decidePulled(docs[doc.docId], pendingDocs.has(doc.docId), ci >= 0, doc);
         if (action.type === 'hold') {
@@ -119,10 +130,15 @@ export async function syncProject(db: GluefieldDb, api: Api, projectId: string):
           continue;
         }
         if (action.type === 'skip') continue;
-        await adoptDoc(db, api, link, doc);
+        if (!(await adoptDoc(db, api, link, doc))) {
+          waiting.push(doc);
+          continue;
+        }
         docs[doc.docId] = { kind: doc.kind, version: doc.version };
         report.pulled++;
       }
+      // Still waiting at the end: their model was deleted. Known, so they are not asked for again.
+      if (!res.more) for (const doc of waiting) docs[doc.docId] = { kind: doc.kind, version: doc.version };
       link = await saveLink(db, projectId, { docs, conflicts, revision: res.revision, serverRevision: res.revision });
       if (!res.more) break;
     }
@@ -156,18 +172,27 @@ export async function settleConflict(db: GluefieldDb, api: Api | null, projectId
   if (!link || !c) return;
   const ids = { changeId: crypto.randomUUID(), docId: crypto.randomUUID() };
   const plan = resolveConflict(c.mine, { changeId: c.changeId, docId: c.docId, reason: c.reason, server: c.server }, choice, ids);
-  const docs = { ...link.docs };
+  let docs = { ...link.docs };
+  let revision = link.revision;
+  // Copy before adopting: adopting overwrites (or deletes) the local document the copy is made from.
+  const copies = plan.push.filter((p) => p.docId !== docId);
+  for (const p of copies) await copyLocal(db, link, docId, p.kind, p.docId);
   if (plan.adopt) {
     await adoptDoc(db, api, link, plan.adopt);
     docs[docId] = { kind: plan.adopt.kind, version: plan.adopt.version };
+    // A model this machine had deleted comes back: its runs and readings were dropped here but stayed
+    // on the server, so forget what is known of them and pull from the start to bring them back.
+    if (c.mine.deleted && !plan.adopt.deleted && plan.adopt.kind === 'model') {
+      docs = Object.fromEntries(Object.entries(docs).filter(([, d]) => !DEPENDENT.has(d.kind)));
+      revision = 0;
+    }
   }
-  const copies = plan.push.filter((p) => p.docId !== docId);
-  for (const p of copies) await copyLocal(db, link, docId, p.kind, p.docId);
   await db.transaction('rw', [db.syncLinks, db.outbox], async () => {
     await db.outbox.where('[projectId+docId]').equals([projectId, docId]).delete();
-    await db.syncLinks.put({ ...link, docs, conflicts: link.conflicts.filter((x) => x.docId !== docId) });
+    await db.syncLinks.put({ ...link, docs, revision, conflicts: link.conflicts.filter((x) => x.docId !== docId) });
     for (const p of plan.push) {
-      await db.outbox.add({ projectId, docId: p.docId, kind: p.kind, changeId: p.changeId, baseVersion: p.baseVersion, createdAt: Date.now() });
+      const tombstone = p.deleted ? { deleted: true as const, name: c.mineSummary.name } : {};
+      await db.outbox.add({ projectId, docId: p.docId, kind: p.kind, changeId: p.changeId, baseVersion: p.baseVersion, createdAt: Date.now(), ...tombstone });
     }
   });
 }

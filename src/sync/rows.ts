@@ -18,6 +18,9 @@ export interface OutboxRow {
   createdAt: number;
   /** Set once a push carried it; a later edit then queues a new change rather than reusing this id. */
   sentAt?: number;
+  /** A deletion (pushed as a tombstone). The local row is gone, so its name travels here for the conflict screen. */
+  deleted?: true;
+  name?: string;
 }
 
 /** What the client knows of a document's server copy. */
@@ -48,6 +51,8 @@ export interface DocSummary {
   cells: number[] | null;
   who: string | null;
   when: string | null;
+  /** This side deleted the document. */
+  deleted?: boolean;
 }
 
 /** A project linked to the team server (the row exists only for linked projects). */

@@ -1,7 +1,7 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { useState } from 'react';
+import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { useEffect, useState } from 'react';
 import { appDb } from '../app/db';
-import { signIn, signOut } from '../sync/api';
+import { serverBase, setServerBase, signIn, signOut } from '../sync/api';
 import { Button } from '../ui/Button';
 import { refreshAfterSync, teamApi, useSession } from './teamClient';
 
@@ -13,10 +13,13 @@ export function AccountPanel() {
   const qc = useQueryClient();
   const [open, setOpen] = useState(false);
   const out = useMutation({ mutationFn: () => signOut(appDb(), teamApi()), onSettled: () => refreshAfterSync(qc) });
+  const server = useServerBase();
   if (session.data) {
     return (
       <span className="flex items-center gap-2 text-xs text-ink-soft">
-        <span data-testid="signed-in-as">{session.data.user.name}</span>
+        <span data-testid="signed-in-as" title={`on ${server.data || 'this site'}`}>
+          {session.data.user.name}
+        </span>
         <Button tone="quiet" onClick={() => out.mutate()}>
           Sign out
         </Button>
@@ -31,9 +34,68 @@ export function AccountPanel() {
       {open && (
         <div className="absolute right-0 top-8 z-30 w-72 rounded border border-rule bg-sheet p-3 shadow-lg">
           <AccountForm onDone={() => setOpen(false)} />
+          <ServerAddressForm />
         </div>
       )}
     </span>
+  );
+}
+
+function useServerBase() {
+  return useQuery({ queryKey: ['server-base'], queryFn: () => serverBase(appDb()) });
+}
+
+/** Where the team server is: by default this site's own origin, which serves both the app and the API. */
+function ServerAddressForm() {
+  const qc = useQueryClient();
+  const current = useServerBase();
+  const [address, setAddress] = useState('');
+  const [note, setNote] = useState<{ text: string; bad: boolean }>();
+  useEffect(() => {
+    if (current.data !== undefined) setAddress(current.data);
+  }, [current.data]);
+  const save = useMutation({
+    mutationFn: () => setServerBase(appDb(), address),
+    onSuccess: (value) => {
+      setAddress(value);
+      setNote({ text: value ? `Signing in goes to ${value}.` : 'Signing in goes to this site.', bad: false });
+      void qc.invalidateQueries({ queryKey: ['server-base'] });
+    },
+    onError: (e: Error) => setNote({ text: e.message, bad: true }),
+  });
+  return (
+    <form
+      aria-label="Team server"
+      className="mt-3 flex flex-col gap-1 border-t border-rule-soft pt-2 text-xs"
+      onSubmit={(e) => {
+        e.preventDefault();
+        setNote(undefined);
+        save.mutate();
+      }}
+    >
+      <label htmlFor="team-server" className="text-ink-soft">
+        Team server address
+      </label>
+      <span className="flex gap-1">
+        <input
+          id="team-server"
+          value={address}
+          onChange={(e) => setAddress(e.target.value)}
+          placeholder="this site (default)"
+          aria-invalid={note?.bad || undefined}
+          className="min-w-0 flex-1 rounded border border-rule bg-paper px-2 py-1"
+        />
+        <Button type="submit" disabled={save.isPending}>
+          Use
+        </Button>
+      </span>
+      {note && (
+        <p role={note.bad ? 'alert' : 'status'} className={note.bad ? 'text-odds' : 'text-ink-soft'}>
+          {note.text}
+        </p>
+      )}
+      <p className="text-[11px] text-ink-faint">Another address works when that server lists this site as its app origin (APP_ORIGIN).</p>
+    </form>
   );
 }
 

@@ -52,7 +52,8 @@ function ConflictCard({ projectId, conflict, theirs }: { projectId: string; conf
     },
     onSettled: () => refreshAfterSync(qc),
   });
-  const canKeepBoth = conflict.kind === 'model' || conflict.kind === 'run';
+  // A deletion has no content to keep as a copy.
+  const canKeepBoth = (conflict.kind === 'model' || conflict.kind === 'run' || conflict.kind === 'readings') && !conflict.mine.deleted;
   return (
     <li data-testid="conflict" className="rounded border border-odds bg-sheet p-4">
       <p className="mb-3 text-sm">
@@ -86,6 +87,11 @@ function Side({ title, s, testId }: { title: string; s: DocSummary | null; testI
       <h3 className="mb-2 text-xs font-semibold uppercase tracking-wide text-ink-soft">{title}</h3>
       {!s ? (
         <p className="text-ink-soft">Nothing on the server.</p>
+      ) : s.deleted ? (
+        <p data-testid={`${testId}-deleted`}>
+          Deleted{s.who ? ` by ${s.who}` : ''}
+          {s.when ? `, ${new Date(s.when).toLocaleString()}` : ''}. <span className="text-ink-soft">{s.name}</span>
+        </p>
       ) : (
         <dl className="grid grid-cols-[6rem_1fr] gap-y-0.5">
           <dt className="text-ink-faint">name</dt>

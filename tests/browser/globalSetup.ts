@@ -1,5 +1,6 @@
 import { execFileSync } from 'node:child_process';
 import { mkdtempSync, rmSync } from 'node:fs';
+import { createServer as createNetServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -18,14 +19,30 @@ let server: GluefieldServer | undefined;
 export default async function setup(project: TestProject) {
   execFileSync(process.execPath, [`${root}node_modules/vite/bin/vite.js`, 'build', '--logLevel', 'error'], { cwd: root, stdio: 'inherit' });
   const dir = mkdtempSync(join(tmpdir(), 'gluefield-browser-'));
-  const config = loadConfig({ GLUEFIELD_DB: join(dir, 'gluefield.sqlite'), SMTP_PORT: '0', SMTP_SINK: '1', BCRYPT_ROUNDS: '4', RATE_LIMIT_LOGIN: '1000' });
+  // The links in mailed invitations and resets start with APP_ORIGIN, so the server must know its port before it starts.
+  const port = await freePort();
+  const appUrl = `http://127.0.0.1:${port}`;
+  const config = loadConfig({
+    GLUEFIELD_DB: join(dir, 'gluefield.sqlite'), SMTP_PORT: '0', SMTP_SINK: '1', BCRYPT_ROUNDS: '4', RATE_LIMIT_LOGIN: '1000', RATE_LIMIT_RESET: '1000', APP_ORIGIN: appUrl,
+  });
   server = await createServer({ ...config, distDir: `${root}dist` });
-  const { port } = await server.listen(0, '127.0.0.1');
-  project.provide('appUrl', `http://127.0.0.1:${port}`);
+  await server.listen(port, '127.0.0.1');
+  project.provide('appUrl', appUrl);
   return async () => {
     await server?.close();
     rmSync(dir, { recursive: true, force: true });
   };
+}
+
+function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const probe = createNetServer();
+    probe.on('error', reject);
+    probe.listen(0, '127.0.0.1', () => {
+      const { port } = probe.address() as { port: number };
+      probe.close(() => resolve(port));
+    });
+  });
 }
 
 declare module 'vitest' {

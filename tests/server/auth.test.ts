@@ -1,7 +1,8 @@
 import jwt from 'jsonwebtoken';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { bearer, freshEmail, PASSWORD, register, startTestServer, type TestServer } from './helpers';
+import { RefreshTokenSchema, UserSchema } from '../../server/db/entities';
+import { bearer, freshEmail, makeAdmin, PASSWORD, register, startTestServer, type TestServer } from './helpers';
 
 let t: TestServer;
 beforeAll(async () => {
@@ -56,7 +57,7 @@ describe('register and sign in', () => {
   it('a disabled account can neither sign in nor use its tokens', async () => {
     const someone = await register(t.app);
     const admin = await register(t.app);
-    await t.server.dataSource.query(`UPDATE users SET siteRole = 'admin' WHERE id = ?`, [admin.user.id]);
+    await makeAdmin(t, admin.user.id);
     await request(t.app).patch(`/api/admin/users/${someone.user.id}`).set(bearer(admin.accessToken)).send({ disabled: true }).expect(200);
     await request(t.app).post('/api/auth/login').send({ email: someone.user.email, password: PASSWORD }).expect(403);
     await request(t.app).get('/api/me').set(bearer(someone.accessToken)).expect(401);
@@ -64,12 +65,13 @@ describe('register and sign in', () => {
   });
 
   it('the site keeps its last enabled admin', async () => {
-    const admins = await t.server.dataSource.query(`SELECT id FROM users WHERE siteRole = 'admin'`);
+    const users = t.server.dataSource.getRepository(UserSchema);
+    const admins = await users.findBy({ siteRole: 'admin' });
     const admin = await register(t.app);
-    await t.server.dataSource.query(`UPDATE users SET siteRole = 'member' WHERE siteRole = 'admin'`);
-    await t.server.dataSource.query(`UPDATE users SET siteRole = 'admin' WHERE id = ?`, [admin.user.id]);
+    await users.update({ siteRole: 'admin' }, { siteRole: 'member' });
+    await makeAdmin(t, admin.user.id);
     await request(t.app).patch(`/api/admin/users/${admin.user.id}`).set(bearer(admin.accessToken)).send({ siteRole: 'member' }).expect(409);
-    for (const { id } of admins) await t.server.dataSource.query(`UPDATE users SET siteRole = 'admin' WHERE id = ?`, [id]);
+    for (const { id } of admins) await makeAdmin(t, id);
   });
 });
 
@@ -129,7 +131,7 @@ describe('refresh tokens', () => {
 
   it('an expired or unknown refresh token is refused', async () => {
     const s = await register(t.app);
-    await t.server.dataSource.query(`UPDATE refresh_tokens SET expiresAt = '2000-01-01T00:00:00.000Z' WHERE userId = ?`, [s.user.id]);
+    await t.server.dataSource.getRepository(RefreshTokenSchema).update({ userId: s.user.id }, { expiresAt: '2000-01-01T00:00:00.000Z' });
     const res = await request(t.app).post('/api/auth/refresh').send({ refreshToken: s.refreshToken }).expect(401);
     expect(res.body.error).toMatch(/expired/);
     await request(t.app).post('/api/auth/refresh').send({ refreshToken: 'x'.repeat(43) }).expect(401);
@@ -138,7 +140,7 @@ describe('refresh tokens', () => {
 
   it('are stored hashed, never as given', async () => {
     const s = await register(t.app);
-    const rows: { tokenHash: string }[] = await t.server.dataSource.query('SELECT tokenHash FROM refresh_tokens WHERE userId = ?', [s.user.id]);
+    const rows = await t.server.dataSource.getRepository(RefreshTokenSchema).findBy({ userId: s.user.id });
     expect(rows.map((r) => r.tokenHash)).not.toContain(s.refreshToken);
     expect(rows[0].tokenHash).toMatch(/^[0-9a-f]{64}$/);
   });

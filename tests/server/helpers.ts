@@ -1,11 +1,14 @@
+import { randomUUID } from 'node:crypto';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { Express } from 'express';
 import request from 'supertest';
+import { DataSource } from 'typeorm';
 import type { AuthResponse } from '../../shared/api/types';
 import { loadConfig } from '../../server/config';
 import { createServer, type GluefieldServer } from '../../server/createServer';
+import { UserSchema } from '../../server/db/entities';
 import type { Clock } from '../../server/services/clock';
 
 export interface TestServer {
@@ -33,10 +36,39 @@ export function testEnv(dir: string, extra: Record<string, string> = {}): Record
   };
 }
 
-/** A server on a new SQLite file in a temporary folder, migrated from scratch. */
+/**
+ * Set to a PostgreSQL URL (`postgres://user@host:port/db`, a role that may
+ * create databases) to run the server tests on PostgreSQL: every test
+ * server then gets a database of its own there, dropped when it stops.
+ */
+export const PG_URL_VARIABLE = 'GLUEFIELD_TEST_PG_URL';
+export const testPgUrl = (): string | undefined => process.env[PG_URL_VARIABLE] || undefined;
+
+/** Run SQL on the PostgreSQL server named by `url` (its maintenance connection). */
+export async function onPgServer<T>(url: string, work: (ds: DataSource) => Promise<T>): Promise<T> {
+  const ds = await new DataSource({ type: 'postgres', url }).initialize();
+  try {
+    return await work(ds);
+  } finally {
+    await ds.destroy();
+  }
+}
+
+/** A fresh, empty PostgreSQL database on the server of `url`; returns its URL and how to drop it. */
+export async function freshPgDatabase(url: string): Promise<{ url: string; drop(): Promise<void> }> {
+  const name = `gluefield_test_${randomUUID().replace(/-/g, '').slice(0, 16)}`;
+  await onPgServer(url, (ds) => ds.query(`CREATE DATABASE ${name}`));
+  const at = new URL(url);
+  at.pathname = `/${name}`;
+  return { url: at.href, drop: () => onPgServer(url, (ds) => ds.query(`DROP DATABASE IF EXISTS ${name} WITH (FORCE)`)).then(() => undefined) };
+}
+
+/** A server on a new SQLite file in a temporary folder (or a new PostgreSQL database, see {@link PG_URL_VARIABLE}), migrated from scratch. */
 export async function startTestServer(extra: Record<string, string> = {}, clock?: Clock): Promise<TestServer> {
   const dir = mkdtempSync(join(tmpdir(), 'gluefield-server-'));
-  const env = testEnv(dir, extra);
+  const pgUrl = testPgUrl();
+  const pg = pgUrl ? await freshPgDatabase(pgUrl) : undefined;
+  const env = testEnv(dir, { ...(pg ? { DATABASE_URL: pg.url } : {}), ...extra });
   const t: TestServer = {
     server: await createServer(loadConfig(env), clock),
     get app() {
@@ -50,6 +82,7 @@ export async function startTestServer(extra: Record<string, string> = {}, clock?
     },
     async stop() {
       await this.server.close();
+      await pg?.drop();
       rmSync(dir, { recursive: true, force: true });
     },
   };
@@ -75,7 +108,7 @@ export async function register(app: Express, email = freshEmail(), name = 'Test 
 
 /** Make an account a site admin directly in the database (there is no API to become the first admin). */
 export async function makeAdmin(t: TestServer, userId: string): Promise<void> {
-  await t.server.dataSource.query(`UPDATE users SET siteRole = 'admin' WHERE id = ?`, [userId]);
+  await t.server.dataSource.getRepository(UserSchema).update({ id: userId }, { siteRole: 'admin' });
 }
 
 export interface Crew {

@@ -1,5 +1,6 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { InvitationSchema, PasswordResetSchema } from '../../server/db/entities';
 import { bearer, freshEmail, linkInMail, makeCrew, PASSWORD, register, startTestServer, type Crew, type TestServer } from './helpers';
 
 let t: TestServer;
@@ -57,7 +58,7 @@ describe('invitations by e-mail', () => {
   it('expire, can be withdrawn, and are logged', async () => {
     const expiring = freshEmail('expiring');
     await request(t.app).post(`/api/projects/${crew.projectId}/members`).set(bearer(crew.owner.accessToken)).send({ email: expiring, role: 'viewer' }).expect(202);
-    await t.server.dataSource.query(`UPDATE invitations SET expiresAt = '2000-01-01T00:00:00.000Z' WHERE email = ?`, [expiring]);
+    await t.server.dataSource.getRepository(InvitationSchema).update({ email: expiring }, { expiresAt: '2000-01-01T00:00:00.000Z' });
     await request(t.app).post(`/api/invitations/${tokenOf(linkInMail(t, expiring))}/accept`).send({ name: 'Late', password: PASSWORD }).expect(410);
 
     const withdrawn = freshEmail('withdrawn');
@@ -74,7 +75,7 @@ describe('invitations by e-mail', () => {
   it('stores only a hash of the token', async () => {
     const email = freshEmail('hashed');
     await request(t.app).post(`/api/projects/${crew.projectId}/members`).set(bearer(crew.owner.accessToken)).send({ email, role: 'viewer' }).expect(202);
-    const [row] = await t.server.dataSource.query('SELECT tokenHash FROM invitations WHERE email = ?', [email]);
+    const row = await t.server.dataSource.getRepository(InvitationSchema).findOneByOrFail({ email });
     expect(row.tokenHash).not.toBe(tokenOf(linkInMail(t, email)));
   });
 });
@@ -106,7 +107,7 @@ describe('password reset by e-mail', () => {
     await request(t.app).post('/api/auth/password-reset').send({ email: someone.user.email }).expect(202);
     const token = tokenOf(linkInMail(t, someone.user.email));
     await request(t.app).post('/api/auth/password-reset/confirm').send({ token, password: 'short' }).expect(400);
-    await t.server.dataSource.query(`UPDATE password_resets SET expiresAt = '2000-01-01T00:00:00.000Z' WHERE userId = ?`, [someone.user.id]);
+    await t.server.dataSource.getRepository(PasswordResetSchema).update({ userId: someone.user.id }, { expiresAt: '2000-01-01T00:00:00.000Z' });
     await request(t.app).post('/api/auth/password-reset/confirm').send({ token, password: 'traverse-closure-7' }).expect(400);
     await request(t.app).post('/api/auth/password-reset/confirm').send({ token: 'B'.repeat(43), password: 'traverse-closure-7' }).expect(400);
   });

@@ -1,6 +1,7 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { ChangeInput, PullResponse, PushResponse } from '../../shared/sync';
+import { DocumentSchema } from '../../server/db/entities';
 import { bearer, makeCrew, startTestServer, type Crew, type TestServer } from './helpers';
 
 let t: TestServer;
@@ -13,6 +14,10 @@ afterAll(() => t.stop());
 
 let n = 0;
 const id = (prefix: string) => `${prefix}-${++n}`;
+
+const readingsText = JSON.stringify({ format: 'gluefield.readings', version: 1, values: [{ cell: [0], value: [1.5] }, { cell: [1], value: ['9/4'], weight: 2 }] });
+const readings = { modelId: 'model-1', name: 'week 3', count: 2, bytes: readingsText.length, text: readingsText };
+const readingsWith = (patch: Record<string, unknown>) => ({ changes: [{ changeId: `rx-${++n}`, docId: 'rd', kind: 'readings', baseVersion: 0, body: { ...readings, ...patch } }] });
 
 async function push(token: string, changes: ChangeInput[], projectId = crew.projectId): Promise<PushResponse> {
   const res = await request(t.app).post(`/api/projects/${projectId}/changes`).set(bearer(token)).send({ changes });
@@ -32,7 +37,7 @@ describe('push and pull', () => {
     const b = id('doc');
     const res = await push(crew.editor.accessToken, [
       { changeId: id('c'), docId: a, kind: 'model', baseVersion: 0, body: { name: 'Ring' } },
-      { changeId: id('c'), docId: b, kind: 'readings', baseVersion: 0, body: { h: [1.5, 2.25] } },
+      { changeId: id('c'), docId: b, kind: 'readings', baseVersion: 0, body: readings },
     ]);
     expect(res.revision).toBe(start + 2);
     expect(res.conflicts).toEqual([]);
@@ -41,7 +46,7 @@ describe('push and pull', () => {
     const since = await pull(crew.viewer.accessToken, start);
     expect(since.revision).toBe(start + 2);
     expect(since.more).toBe(false);
-    expect(since.changes.map((d) => [d.docId, d.version, d.body])).toEqual([[a, 1, { name: 'Ring' }], [b, 1, { h: [1.5, 2.25] }]]);
+    expect(since.changes.map((d) => [d.docId, d.version, d.body])).toEqual([[a, 1, { name: 'Ring' }], [b, 1, readings]]);
     expect(since.changes[0]).toMatchObject({ kind: 'model', deleted: false, createdBy: crew.editor.user.id, updatedBy: crew.editor.user.id });
     expect((await pull(crew.viewer.accessToken, start + 1)).changes.map((d) => d.docId)).toEqual([b]);
     expect((await pull(crew.viewer.accessToken, start + 2)).changes).toEqual([]);
@@ -135,7 +140,7 @@ describe('replaying a change id', () => {
     expect(again.accepted).toEqual(first.accepted);
     expect(againInBatch.accepted).toEqual([first.accepted[0], first.accepted[0]]);
     expect(again.revision).toBe(first.revision);
-    const rows = await t.server.dataSource.query('SELECT version FROM documents WHERE docId = ?', [doc]);
+    const rows = await t.server.dataSource.getRepository(DocumentSchema).find({ select: { version: true }, where: { docId: doc } });
     expect(rows).toEqual([{ version: 1 }]);
   });
 
@@ -159,11 +164,36 @@ describe('validation', () => {
     ['an id with spaces', { changes: [{ changeId: 'x 4', docId: 'd', kind: 'model', baseVersion: 0, body: 1 }] }],
     ['a run without provenance', { changes: [{ changeId: 'x5', docId: 'r', kind: 'run', baseVersion: 0, body: { dims: [1, 0] } }] }],
     ['an upload from nowhere', { changes: [{ changeId: 'x6', docId: 'd', kind: 'model', baseVersion: 0, uploadId: '8a0c3a8e-2f52-4f0e-9d0e-2d8f6f1f0b11' }] }],
+    ['readings with neither text nor upload', readingsWith({ text: undefined })],
   ])('answers 400 to %s, applying nothing', async (_what, body) => {
     const before = (await pull(crew.viewer.accessToken, 0)).revision;
     const res = await request(t.app).post(`/api/projects/${crew.projectId}/changes`).set(bearer(crew.editor.accessToken)).send(body).expect(400);
     expect(typeof res.body.error).toBe('string');
     expect((await pull(crew.viewer.accessToken, 0)).revision).toBe(before);
+  });
+
+  it.each([
+    ['no model', { modelId: undefined }, 'changes.0.body.modelId'],
+    ['an empty name', { name: '  ' }, 'changes.0.body.name: must not be empty'],
+    ['a fractional count', { count: 1.5 }, 'changes.0.body.count'],
+    ['text that is not JSON', { text: '{values' }, 'changes.0.body.text: is not JSON'],
+    ['another file format', { text: JSON.stringify({ format: 'gluefield.sheaf', version: 1, values: [] }), count: 0 }, 'changes.0.body.text.format: must be "gluefield.readings"'],
+    ['a reading without a cell', { text: JSON.stringify({ format: 'gluefield.readings', version: 1, values: [{ value: [1] }] }), count: 1 }, 'changes.0.body.text.values.0.cell'],
+    ['a reading with no numbers', { text: JSON.stringify({ format: 'gluefield.readings', version: 1, values: [{ cell: [0], value: [] }] }), count: 1 }, 'changes.0.body.text.values.0.value: must hold at least one number'],
+    ['a count that disagrees with the file', { count: 3 }, 'changes.0.body.count: says 3 readings, but the text holds 2'],
+  ])('readings with %s answer 400 naming the field', async (_what, patch, message) => {
+    const before = (await pull(crew.viewer.accessToken, 0)).revision;
+    const res = await request(t.app).post(`/api/projects/${crew.projectId}/changes`).set(bearer(crew.editor.accessToken)).send(readingsWith(patch)).expect(400);
+    expect(res.body.error).toContain(message);
+    expect((await pull(crew.viewer.accessToken, 0)).revision).toBe(before);
+  });
+
+  it('a readings tombstone needs no body', async () => {
+    const docId = id('rd');
+    const made = await push(crew.editor.accessToken, [{ changeId: id('c'), docId, kind: 'readings', baseVersion: 0, body: readings }]);
+    expect(made.accepted).toHaveLength(1);
+    const gone = await push(crew.editor.accessToken, [{ changeId: id('c'), docId, kind: 'readings', baseVersion: 1, deleted: true }]);
+    expect(gone.accepted[0]).toMatchObject({ docId, version: 2 });
   });
 
   it('answers 400 to a bad since', async () => {

@@ -1,6 +1,6 @@
 import 'fake-indexeddb/auto';
 import { describe, expect, test } from 'vitest';
-import { createProject, deleteModel, deleteProject, listReadings, loadReadingsText, openDb, saveNewModel, saveReadings, StoreError } from '../../src/store';
+import { createProject, deleteModel, deleteProject, listReadings, loadReadingsText, openDb, saveNewModel, saveReadings, StoreError, updateReadings } from '../../src/store';
 
 let n = 0;
 const fresh = () => openDb(`readings-test-${n++}`);
@@ -35,5 +35,20 @@ describe('readings kept with a model', () => {
     expect(await db.readings.count()).toBe(1);
     await deleteProject(db, p.id);
     expect(await db.readings.count()).toBe(0);
+  });
+
+  test('a readings file is renamed or given a new text with its count; a text without its count is refused and changes nothing', async () => {
+    const db = fresh();
+    const p = await createProject(db, 'Ring');
+    const m = await saveNewModel(db, { projectId: p.id, name: 'ring', text: '{"x":1}', source: 'model', ...summary });
+    const r = await saveReadings(db, { modelId: m.id, name: 'week 3', text: '{"values":[1]}', count: 1 });
+    const renamed = await updateReadings(db, r.id, { name: ' week 3 (checked) ' });
+    expect(renamed.name).toBe('week 3 (checked)');
+    expect(await loadReadingsText(db, r.id)).toBe('{"values":[1]}');
+    await expect(updateReadings(db, r.id, { text: '{"values":[1,2]}' })).rejects.toThrow('comes with its count');
+    const replaced = await updateReadings(db, r.id, { text: '{"values":[1,2]}', count: 2 });
+    expect([replaced.count, replaced.bytes, replaced.name]).toEqual([2, 16, 'week 3 (checked)']);
+    expect(await loadReadingsText(db, r.id)).toBe('{"values":[1,2]}');
+    await expect(updateReadings(db, 'nope', { name: 'x' })).rejects.toThrow('not found');
   });
 });
