@@ -68,15 +68,16 @@ export function readMaps<E>(
 
   (entries ?? []).forEach((item: unknown, i: number) => {
     if (problems.full) return;
+    // Messages are built only when something is wrong: a large file has one entry per incidence.
     const where = `maps.entries[${i}]`;
     if (!isObject(item)) {
       problems.add(where, 'must be an object {"face", "coface", "matrix" | "scalar"}');
       return;
     }
-    const face = resolveCell(complex, dense, item.face, problems, `${where}.face`);
-    const coface = resolveCell(complex, dense, item.coface, problems, `${where}.coface`);
+    const face = resolveCell(complex, dense, item.face, problems, () => `${where}.face`);
+    const coface = resolveCell(complex, dense, item.coface, problems, () => `${where}.coface`);
     if (!face || !coface) return;
-    const pair = `pair [${(item.face as number[]).join(',')}] ◁ [${(item.coface as number[]).join(',')}]`;
+    const pairText = () => `pair [${(item.face as number[]).join(',')}] ◁ [${(item.coface as number[]).join(',')}]`;
     const k = coface.k;
     const pos = k === face.k + 1 ? oppositePosition(face.dense, coface.dense) : -1;
     if (pos < 0) {
@@ -85,7 +86,7 @@ export function readMaps<E>(
     }
     const e = coface.index * (k + 1) + pos;
     if (explicit[k][e]) {
-      problems.add(where, `${pair} is given twice`);
+      problems.add(where, `${pairText()} is given twice`);
       return;
     }
     explicit[k][e] = 1;
@@ -94,20 +95,20 @@ export function readMaps<E>(
     const hasMatrix = item.matrix !== undefined;
     const hasScalar = item.scalar !== undefined;
     if (hasMatrix === hasScalar) {
-      problems.add(where, `${pair}: give exactly one of "matrix" or "scalar"`);
+      problems.add(where, `${pairText()}: give exactly one of "matrix" or "scalar"`);
       return;
     }
     let mat: Mat<E> | undefined;
     if (hasScalar) {
       if (rows !== cols) {
-        problems.add(where, `${pair}: a scalar map needs stalks of equal dimension, got ${cols} on the face and ${rows} on the coface`);
+        problems.add(where, `${pairText()}: a scalar map needs stalks of equal dimension, got ${cols} on the face and ${rows} on the coface`);
         return;
       }
-      const v = readEntry(item.scalar, F, problems, `${where}.scalar`, pair);
+      const v = readEntry(item.scalar, F, problems, () => `${where}.scalar`, pairText);
       if (v === undefined) return;
       mat = scalarMat(rows, v);
     } else {
-      mat = readMatrix(item.matrix, rows, cols, F, problems, `${where}.matrix`, pair);
+      mat = readMatrix(item.matrix, rows, cols, F, problems, () => `${where}.matrix`, pairText);
       if (!mat) return;
     }
     if (isZeroMat(F, mat)) {
@@ -187,18 +188,49 @@ function oppositePosition(face: Int32Array, coface: Int32Array): number {
   return i === face.length ? (skipped < 0 ? -1 : skipped) : -1;
 }
 
-function readEntry<E>(raw: unknown, F: Field<E>, problems: ProblemList, where: string, pair: string): E | undefined {
+function readEntry<E>(raw: unknown, F: Field<E>, problems: ProblemList, where: () => string, pair: () => string): E | undefined {
+  const small = smallEntry(raw, F);
+  if (small !== undefined) return small;
   const v = parseExactValue(raw);
   if (typeof v === 'string') {
-    problems.add(where, `${pair}: ${v}`);
+    problems.add(where(), `${pair()}: ${v}`);
     return undefined;
   }
   const e = F.fromRatio(v.n, v.d, v.float);
   if (e === undefined) {
-    problems.add(where, `${pair}: the denominator of ${JSON.stringify(raw)} is not invertible in ${F.label}`);
+    problems.add(where(), `${pair()}: the denominator of ${JSON.stringify(raw)} is not invertible in ${F.label}`);
     return undefined;
   }
   return e;
+}
+
+/** Integers of up to 15 digits, as numbers or strings, optionally over such a denominator. */
+const SMALL_RATIO = /^\s*([+-]?\d{1,15})\s*(?:\/\s*(\d{1,15})\s*)?$/;
+
+/**
+ * The common entries (small integers and fractions) of the number fields,
+ * read without big integers; undefined sends everything else, including
+ * every entry that needs a message, through the exact reader. The same
+ * value results: n/d in GF(p), and the float n/d in the reals.
+ */
+function smallEntry<E>(raw: unknown, F: Field<E>): E | undefined {
+  if (F.kind === 'rational') return undefined;
+  let n: number;
+  let d = 1;
+  if (typeof raw === 'number') {
+    if (!Number.isSafeInteger(raw)) return undefined;
+    n = raw;
+  } else if (typeof raw === 'string') {
+    const m = SMALL_RATIO.exec(raw);
+    if (!m) return undefined;
+    n = Number(m[1]);
+    if (m[2] !== undefined) d = Number(m[2]);
+  } else return undefined;
+  if (d === 0) return undefined;
+  if (F.kind === 'real') return (d === 1 ? n : n / d) as E;
+  const den = F.fromInt(d);
+  if (F.isZero(den)) return undefined;
+  return F.mul(F.fromInt(n), F.inv(den));
 }
 
 function readMatrix<E>(
@@ -207,13 +239,13 @@ function readMatrix<E>(
   cols: number,
   F: Field<E>,
   problems: ProblemList,
-  where: string,
-  pair: string,
+  where: () => string,
+  pair: () => string,
 ): Mat<E> | undefined {
-  const shape = `${rows}×${cols} (rows = coface stalk ${rows}, columns = face stalk ${cols})`;
+  const shape = () => `${rows}×${cols} (rows = coface stalk ${rows}, columns = face stalk ${cols})`;
   if (!Array.isArray(raw) || raw.length !== rows) {
     const got = Array.isArray(raw) ? `${raw.length} rows` : 'not a list of rows';
-    problems.add(where, `${pair}: matrix must be ${shape}, got ${got}`);
+    problems.add(where(), `${pair()}: matrix must be ${shape()}, got ${got}`);
     return undefined;
   }
   const data = F.newVec(rows * cols);
@@ -221,11 +253,11 @@ function readMatrix<E>(
     const row = raw[r];
     if (!Array.isArray(row) || row.length !== cols) {
       const got = Array.isArray(row) ? `${row.length} entries` : 'not a list';
-      problems.add(`${where}[${r}]`, `${pair}: row ${r} must have ${cols} entries, got ${got}`);
+      problems.add(`${where()}[${r}]`, `${pair()}: row ${r} must have ${cols} entries, got ${got}`);
       return undefined;
     }
     for (let c = 0; c < cols; c++) {
-      const v = readEntry(row[c], F, problems, `${where}[${r}][${c}]`, pair);
+      const v = readEntry(row[c], F, problems, () => `${where()}[${r}][${c}]`, pair);
       if (v === undefined) return undefined;
       data[r * cols + c] = v;
     }

@@ -229,34 +229,40 @@ export function resolveCell(
   dense: (id: number) => number,
   raw: unknown,
   problems: ProblemList,
-  where: string,
+  where: string | (() => string),
 ): CellRef | undefined {
-  if (!Array.isArray(raw) || raw.length === 0 || raw.some((v) => typeof v !== 'number' || !Number.isSafeInteger(v) || v < 0)) {
-    problems.add(where, `${JSON.stringify(raw)} is not a list of vertex ids`);
+  // Named only on failure: a large file resolves one cell per entry.
+  const at = () => (typeof where === 'string' ? where : where());
+  const name = () => `[${(raw as number[]).join(',')}]`;
+  if (!Array.isArray(raw) || raw.length === 0 || !raw.every(isVertexId)) {
+    problems.add(at(), `${JSON.stringify(raw)} is not a list of vertex ids`);
     return undefined;
   }
   const ids = raw as number[];
-  const name = `[${ids.join(',')}]`;
   const k = ids.length - 1;
   const d = new Int32Array(ids.length);
   for (let i = 0; i < ids.length; i++) {
     d[i] = dense(ids[i]);
     if (d[i] < 0) {
-      problems.add(where, `cell ${name} is not in the complex (vertex ${ids[i]} appears in no simplex)`);
+      problems.add(at(), `cell ${name()} is not in the complex (vertex ${ids[i]} appears in no simplex)`);
       return undefined;
     }
   }
   sortSmall(d, 0, d.length);
   for (let i = 1; i < d.length; i++) {
     if (d[i] === d[i - 1]) {
-      problems.add(where, `cell ${name} repeats a vertex`);
+      problems.add(at(), `cell ${name()} repeats a vertex`);
       return undefined;
     }
   }
   const index = k <= complex.dimension ? complex.simplices[k].find(d) : -1;
   if (index < 0) {
-    problems.add(where, `cell ${name} is not in the complex`);
+    problems.add(at(), `cell ${name()} is not in the complex`);
     return undefined;
   }
   return { k, index, dense: d };
+}
+
+function isVertexId(v: unknown): boolean {
+  return typeof v === 'number' && Number.isSafeInteger(v) && v >= 0;
 }

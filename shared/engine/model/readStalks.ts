@@ -27,7 +27,8 @@ export function readStalks(
     problems.add('stalks.cells', 'must be a list of {"cell": [...], "dim": n}');
     return undefined;
   }
-  const seen = new Set<string>();
+  // One mark per cell rather than a set of names: a large file overrides many cells.
+  const seen = dims.map((d) => new Uint8Array(d.length));
   cells.forEach((c, i) => {
     const where = `stalks.cells[${i}]`;
     if (!isObject(c)) {
@@ -38,14 +39,13 @@ export function readStalks(
       problems.add(`${where}.dim`, `${JSON.stringify(c.dim)} is not a non-negative integer`);
       return;
     }
-    const ref = resolveCell(complex, dense, c.cell, problems, `${where}.cell`);
+    const ref = resolveCell(complex, dense, c.cell, problems, () => `${where}.cell`);
     if (!ref) return;
-    const key = `${ref.k}:${ref.index}`;
-    if (seen.has(key)) {
+    if (seen[ref.k][ref.index]) {
       problems.add(where, `cell [${(c.cell as number[]).join(',')}] is listed twice`);
       return;
     }
-    seen.add(key);
+    seen[ref.k][ref.index] = 1;
     dims[ref.k][ref.index] = c.dim;
   });
   return dims;
