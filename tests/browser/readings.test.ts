@@ -30,7 +30,7 @@ async function downloaded(page: Page, testId: string): Promise<{ name: string; t
   return { name: d.suggestedFilename(), text: readFileSync(await d.path(), 'utf8') };
 }
 
-test('readings for a demo model: a bad CSV is refused by line and cell, a good one is checked in the worker, its worst pair is shown, picked on the Sketch and exported', async () => {
+test('readings for a demo model: a bad CSV (picked) is refused by line and cell, a good one (dropped) is checked in the worker, its worst pair is shown, picked on the Sketch and exported', async () => {
   const { page, context, errors } = await newPage(browser);
   await page.goto(inject('appUrl'));
   await page.getByRole('link', { name: /Demo:/ }).click();
@@ -53,8 +53,12 @@ test('readings for a demo model: a bad CSV is refused by line and cell, a good o
   expect(await page.getByTestId('readings-empty').isVisible()).toBe(true);
   await screenshot(page, 'readings-bad-csv');
 
-  // The good file: listed with its count.
-  await page.getByTestId('readings-input').setInputFiles(tempFile('heights.csv', RIDGE_CSV));
+  // The good file, dropped on the panel: listed with its count.
+  await page.getByTestId('readings-panel').evaluate((el, text) => {
+    const dt = new DataTransfer();
+    dt.items.add(new File([text], 'heights.csv', { type: 'text/csv' }));
+    el.dispatchEvent(new DragEvent('drop', { dataTransfer: dt, bubbles: true, cancelable: true }));
+  }, RIDGE_CSV);
   await expect.poll(() => page.getByTestId('readings-list').textContent(), { timeout: 15_000 }).toContain('heights5 readings');
   expect(await alert.count()).toBe(0);
 
