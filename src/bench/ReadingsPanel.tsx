@@ -56,6 +56,11 @@ export function ReadingsPanel({ modelId, modelName, readOnly, check, onCheck, pi
     setMessage(undefined);
   }, [modelId]);
 
+  // A deleted set takes its check (and the Sketch's colours) with it.
+  useEffect(() => {
+    if (check && readings.data && !readings.data.some((r) => r.id === check.readingsId)) onCheck(undefined);
+  }, [check, readings.data, onCheck]);
+
   const importOne = async (name: string, data: string | Blob) => {
     if (readOnly) return;
     setProblems(undefined);
@@ -146,10 +151,9 @@ export function ReadingsPanel({ modelId, modelName, readOnly, check, onCheck, pi
         </p>
       )}
       {busy && (
-        <div data-testid="readings-importing">
-          <p className="mb-1 truncate text-xs">Importing {busy}…</p>
-          <ProgressBar fraction={0.5} />
-        </div>
+        <p data-testid="readings-importing" className="truncate text-xs">
+          Reading and checking {busy} against the model…
+        </p>
       )}
       {problems && <ProblemList title={problems.title} problems={problems.list} />}
       {readings.data && list.length === 0 && (

@@ -126,6 +126,9 @@ test('readings for a demo model: a bad CSV (picked) is refused by line and cell,
   await page.getByRole('button', { name: 'Delete readings Ridge heights, week 3' }).click();
   await page.getByRole('button', { name: 'Delete readings', exact: true }).click();
   await expect.poll(() => page.getByTestId('readings-empty').isVisible()).toBe(true);
+  // Its check goes with it: no figures, no colours left on the Sketch.
+  await expect.poll(() => sketch.getAttribute('data-shaded')).toBeNull();
+  expect(await page.getByTestId('readings-findings').count()).toBe(0);
 
   expect(errors).toEqual([]);
   await context.close();
