@@ -6,3 +6,5 @@ export { importModelText } from './modelFileText';
 export { detectFormat, type ImportFormat } from './detectFormat';
 export { importAny } from './importAny';
 export { constantSheafModel } from './constantSheafModel';
+export { readReadingsCsv, type ReadingsCsvResult } from './readingsCsv';
+export { readReadingsText, type ReadReadingsTextResult } from './readReadingsText';

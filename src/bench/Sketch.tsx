@@ -6,6 +6,10 @@ export interface SketchPaint {
   vertexValues?: Float64Array;
   /** Per degree, indices of cells that stayed critical after reduction. */
   critical?: Int32Array[];
+  /** A size per cell (residuals of readings, say), per degree, NaN where there is none; coloured from glued (0) to odds (`max`). */
+  shade?: { values: (Float64Array | undefined)[]; max: number; label: string };
+  /** Cells to point out (a row picked in a table), by degree and index. */
+  highlight?: { degree: number; index: number }[];
 }
 
 const INK = '#23262b';
@@ -59,6 +63,8 @@ export function Sketch({ data, paint }: { data: SketchData; paint: SketchPaint }
       <canvas
         ref={canvas}
         data-testid="sketch"
+        data-highlight={paint.highlight?.map((h) => `${h.degree}:${h.index}`).join(' ') || undefined}
+        data-shaded={paint.shade ? paint.shade.values.reduce((n, v) => n + (v ? v.filter((x) => !Number.isNaN(x)).length : 0), 0) : undefined}
         tabIndex={0}
         aria-label="Sketch of the complex: drag to pan, wheel or +/− to zoom, 0 to reset"
         width={size.w * devicePixelRatio}
@@ -94,7 +100,7 @@ export function Sketch({ data, paint }: { data: SketchData; paint: SketchPaint }
       <div className="pointer-events-none absolute bottom-2 left-2 rounded bg-sheet/80 px-2 py-1 text-[11px] text-ink-faint">
         {data.given ? 'positions from the model' : 'automatic layout (no positions in the model)'} · {(data.positions.length / 2).toLocaleString()} vertices
       </div>
-      {paint.vertexValues && <Legend />}
+      {paint.shade ? <ShadeLegend max={paint.shade.max} label={paint.shade.label} /> : paint.vertexValues && <Legend />}
     </div>
   );
 }
@@ -107,6 +113,25 @@ function Legend() {
       <span>+</span>
     </div>
   );
+}
+
+function ShadeLegend({ max, label }: { max: number; label: string }) {
+  return (
+    <div data-testid="sketch-legend" className="pointer-events-none absolute top-2 right-2 rounded bg-sheet/90 px-2 py-1 text-[11px] text-ink-soft">
+      <p className="mb-0.5">{label}</p>
+      <div className="num flex items-center gap-1">
+        <span>0</span>
+        <span className="h-2 w-24 rounded" style={{ background: `linear-gradient(90deg, ${shadeColour(0)}, ${shadeColour(0.5)}, ${shadeColour(1)})` }} />
+        <span>{formatSize(max)}</span>
+      </div>
+      <p className="text-ink-faint">cells without a reading in grey</p>
+    </div>
+  );
+}
+
+/** Sizes for the legend: three significant digits. */
+export function formatSize(x: number): string {
+  return x === 0 ? '0' : Math.abs(x) >= 1e-3 && Math.abs(x) < 1e5 ? String(Number(x.toPrecision(3))) : x.toExponential(2);
 }
 
 /** Above this many triangles the faint fill is only a tint over the edges; skip it. */
@@ -153,6 +178,33 @@ function* draw(c: HTMLCanvasElement, data: SketchData, paint: SketchPaint, view:
     yield;
   }
 
+  const shade = paint.shade;
+  const scaled = (x: number) => (shade && shade.max > 0 ? x / shade.max : 0);
+  const shadedTriangles = shade?.values[2];
+  if (shadedTriangles && T.length) {
+    for (let t = 0; t < shadedTriangles.length; t++) {
+      if (Number.isNaN(shadedTriangles[t])) continue;
+      ctx.fillStyle = shadeColour(scaled(shadedTriangles[t]), 0.55);
+      ctx.beginPath();
+      tri(ctx, X, Y, T[3 * t], T[3 * t + 1], T[3 * t + 2]);
+      ctx.fill();
+    }
+  }
+  const shadedEdges = shade?.values[1];
+  if (shadedEdges) {
+    ctx.lineWidth = 5;
+    ctx.lineCap = 'round';
+    for (let e = 0; e < shadedEdges.length; e++) {
+      if (Number.isNaN(shadedEdges[e])) continue;
+      ctx.strokeStyle = shadeColour(scaled(shadedEdges[e]));
+      ctx.beginPath();
+      ctx.moveTo(X(E[2 * e]), Y(E[2 * e]));
+      ctx.lineTo(X(E[2 * e + 1]), Y(E[2 * e + 1]));
+      ctx.stroke();
+    }
+    ctx.lineCap = 'butt';
+  }
+
   if (crit?.[2]?.length && T.length) {
     ctx.fillStyle = 'rgba(35,38,43,0.35)';
     ctx.beginPath();
@@ -171,7 +223,8 @@ function* draw(c: HTMLCanvasElement, data: SketchData, paint: SketchPaint, view:
   }
   yield;
 
-  const values = paint.vertexValues;
+  const values = shade ? undefined : paint.vertexValues;
+  const shadedVertices = shade?.values[0];
   const r = n > 20_000 ? 1.2 : n > 2000 ? 2.5 : 4.5;
   let maxAbs = 0;
   if (values) for (let i = 0; i < values.length; i++) maxAbs = Math.max(maxAbs, Math.abs(values[i]));
@@ -193,6 +246,15 @@ function* draw(c: HTMLCanvasElement, data: SketchData, paint: SketchPaint, view:
         yield;
       }
     }
+  } else if (shade) {
+    for (let i = 0; i < n; i++) {
+      const x = shadedVertices ? shadedVertices[i] : NaN;
+      const has = !Number.isNaN(x);
+      ctx.fillStyle = has ? shadeColour(scaled(x)) : RULE;
+      ctx.beginPath();
+      ctx.arc(X(i), Y(i), has ? r + 2.5 : r, 0, 2 * Math.PI);
+      ctx.fill();
+    }
   } else {
     for (let i = 0; i < n; i++) {
       ctx.fillStyle = values ? colour(values[i] / (maxAbs || 1)) : INK;
@@ -210,6 +272,29 @@ function* draw(c: HTMLCanvasElement, data: SketchData, paint: SketchPaint, view:
       ctx.stroke();
     }
   }
+  // Last, so nothing covers it: a picked cell outlined in ink with a halo of paper, its own colour kept inside.
+  for (const h of paint.highlight ?? []) {
+    const own = shade?.values[h.degree]?.[h.index];
+    const inside = own === undefined || Number.isNaN(own) || h.degree === 0 ? [] : [[3, shadeColour(scaled(own))] as const];
+    for (const [width, style] of [[12, `rgb(${PAPER})`], [8, INK], ...inside] as const) {
+      ctx.strokeStyle = style;
+      ctx.lineWidth = width;
+      ctx.beginPath();
+      if (h.degree === 0) ctx.arc(X(h.index), Y(h.index), r + 7, 0, 2 * Math.PI);
+      else if (h.degree === 1) {
+        ctx.moveTo(X(E[2 * h.index]), Y(E[2 * h.index]));
+        ctx.lineTo(X(E[2 * h.index + 1]), Y(E[2 * h.index + 1]));
+      } else if (h.degree === 2 && T.length) tri(ctx, X, Y, T[3 * h.index], T[3 * h.index + 1], T[3 * h.index + 2]);
+      ctx.stroke();
+    }
+  }
+}
+
+/** Sequential, for sizes: glued colour at 0, obstruction colour at 1. */
+export function shadeColour(t: number, alpha = 1): string {
+  const a = Math.max(0, Math.min(1, t));
+  const mix = (i: number) => Math.round(GLUED[i] + (ODDS[i] - GLUED[i]) * a);
+  return `rgba(${mix(0)},${mix(1)},${mix(2)},${alpha})`;
 }
 
 function tri(ctx: CanvasRenderingContext2D, X: (i: number) => number, Y: (i: number) => number, a: number, b: number, c: number) {

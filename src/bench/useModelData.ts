@@ -1,7 +1,7 @@
 import { useQuery } from '@tanstack/react-query';
 import { appDb } from '../app/db';
 import { engine } from '../workers/engineClient';
-import { getModel, listModels, listRuns } from '../store';
+import { getModel, listModels, listReadings, listRuns } from '../store';
 
 /** Queries the bench shares; keys carry the model version so edits refresh everything. */
 export function useModels(projectId: string) {
@@ -22,4 +22,8 @@ export function useSketch(modelId: string | undefined, version: number | undefin
 
 export function useRuns(modelId: string | undefined) {
   return useQuery({ queryKey: ['runs', modelId], queryFn: () => listRuns(appDb(), modelId!), enabled: !!modelId });
+}
+
+export function useReadings(modelId: string | undefined) {
+  return useQuery({ queryKey: ['readings', modelId], queryFn: () => listReadings(appDb(), modelId!), enabled: !!modelId });
 }

@@ -19,6 +19,7 @@ import type { GluefieldDb, ModelRow, NewKitResult, RunRow, RunSettings, StoredBa
 import { getModel, loadModelText, saveKitResult, saveModelVersion, saveNewModel, saveRun } from '../store';
 import { recordModelSaved, recordRunSaved } from '../sync/recordChange';
 import { createKitService, type KitService } from './kitService';
+import { createReadingsService, type ReadingsService } from './readingsService';
 
 export interface Progress {
   phase: string;
@@ -72,7 +73,7 @@ interface Loaded {
 /** A kit result to keep, its input files as text or as the Blob the user picked (read in the worker). */
 export type KitResultToSave = Omit<NewKitResult, 'inputs'> & { inputs: { name: string; data: string | Blob }[] };
 
-export interface ComputeService extends KitService {
+export interface ComputeService extends KitService, ReadingsService {
   /**
    * Keep a kit's inputs and report in a project. Packing a large mesh file
    * takes seconds of gzip, which is why it happens here and not on the page.
@@ -121,6 +122,7 @@ export function createComputeService(db: GluefieldDb): ComputeService {
 
   return {
     ...createKitService(),
+    ...createReadingsService(db, async (modelId) => (await load(modelId)).sheaf),
 
     async saveKitResult(input) {
       const inputs = await Promise.all(input.inputs.map(async (f) => ({ name: f.name, text: typeof f.data === 'string' ? f.data : await f.data.text() })));

@@ -1,5 +1,5 @@
 import { useQuery } from '@tanstack/react-query';
-import { lazy, Suspense, useMemo, useState } from 'react';
+import { lazy, Suspense, useCallback, useMemo, useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { appDb } from '../app/db';
 import { useHotkeys } from '../app/useHotkeys';
@@ -7,12 +7,14 @@ import { CellLedger, type LedgerValues } from '../bench/CellLedger';
 import { Findings, type BasisChoice } from '../bench/Findings';
 import { KitShelf } from '../bench/KitShelf';
 import { ModelShelf } from '../bench/ModelShelf';
+import { ReadingsPanel } from '../bench/ReadingsPanel';
 import { RunHistory } from '../bench/RunHistory';
 import { SavedKitResult } from '../bench/SavedKitResult';
 import { Sketch, type SketchPaint } from '../bench/Sketch';
 import { SolvePanel } from '../bench/SolvePanel';
 import { useModel, useRuns, useSketch } from '../bench/useModelData';
 import type { RunRecord } from '../compute/computeService';
+import type { CellRef, ReadingsCheck } from '../compute/readingsService';
 import { listProjects } from '../store';
 import { ReadOnlyBanner, useReadOnly } from '../team/ReadOnlyBanner';
 import { ProjectSyncControls, SyncBadge } from '../team/SyncBadge';
@@ -20,6 +22,7 @@ import { Kbd } from '../ui/Kbd';
 import { engine } from '../workers/engineClient';
 
 type Tab = 'sketch' | 'ledger' | 'editor';
+type Side = 'solve' | 'readings';
 
 // The editor brings the expression parser; load it only when someone edits.
 const MapsEditor = lazy(() => import('../editor/MapsEditor').then((m) => ({ default: m.MapsEditor })));
@@ -34,6 +37,9 @@ export function BenchScreen() {
   const [tab, setTab] = useState<Tab>('sketch');
   const [runId, setRunId] = useState<string>();
   const [chosen, setChosen] = useState<BasisChoice>();
+  const [side, setSide] = useState<Side>('solve');
+  const [check, setCheck] = useState<ReadingsCheck>();
+  const [picked, setPicked] = useState<{ key: string; cells: CellRef[] }>();
   const viewer = useReadOnly(projectId);
   const readOnly = viewer !== false;
   useHotkeys(useMemo(() => ({ '1': () => setTab('sketch'), '2': () => setTab('ledger'), '3': () => setTab('editor') }), []));
@@ -49,6 +55,25 @@ export function BenchScreen() {
   });
   const ledgerValues: LedgerValues | undefined =
     basis && chosen && stalks.data ? { degree: chosen.degree, values: basis.values[chosen.index], offsets: offsetsOf(stalks.data), label: `H^${chosen.degree} #${chosen.index + 1}` } : undefined;
+  const freshCheck = check && m && check.modelId === m.id && check.modelVersion === m.version ? check : undefined;
+  const readingsPaint = useMemo((): SketchPaint | undefined => {
+    if (!freshCheck || !m) return undefined;
+    const values = m.cells.map((n) => new Float64Array(n).fill(NaN));
+    let max = 0;
+    for (const c of freshCheck.cells) {
+      values[c.cell.degree][c.cell.index] = c.norm;
+      max = Math.max(max, c.norm);
+    }
+    return { shade: { values, max, label: 'residual ‖r‖ against the nearest global section' }, highlight: picked?.cells.map((c) => ({ degree: c.degree, index: c.index })) };
+  }, [freshCheck, m, picked]);
+  const onCheck = useCallback((c: ReadingsCheck | undefined) => {
+    setCheck(c);
+    setPicked(undefined);
+  }, []);
+  const onPick = useCallback((key: string | undefined, cells: CellRef[]) => {
+    setPicked(key ? { key, cells } : undefined);
+    if (key) setTab('sketch');
+  }, []);
   const paint: SketchPaint = useMemo(() => {
     const fresh = run && m && run.modelVersion === m.version ? run : undefined;
     const p: SketchPaint = { critical: fresh?.critical };
@@ -106,7 +131,7 @@ export function BenchScreen() {
           {kitResultId && <SavedKitResult key={kitResultId} projectId={projectId} id={kitResultId} />}
           {!modelId && !kitResultId && <EmptyBench readOnly={viewer === true} />}
           {modelId && !m && <p className="p-4 text-ink-soft">Opening the model…</p>}
-          {m && tab === 'sketch' && (sketch.data ? <Sketch data={sketch.data} paint={paint} /> : <p className="p-4 text-ink-soft">Drawing…</p>)}
+          {m && tab === 'sketch' && (sketch.data ? <Sketch data={sketch.data} paint={side === 'readings' && readingsPaint ? readingsPaint : paint} /> : <p className="p-4 text-ink-soft">Drawing…</p>)}
           {m && tab === 'ledger' && <CellLedger modelId={m.id} version={m.version} cells={m.cells} critical={run?.modelVersion === m.version ? run?.critical : undefined} values={ledgerValues} />}
           {m && tab === 'editor' && (
             <Suspense fallback={<p className="p-4 text-ink-soft">Opening the editor…</p>}>
@@ -118,9 +143,27 @@ export function BenchScreen() {
       <aside className="flex min-h-0 min-w-0 flex-col overflow-x-hidden overflow-y-auto border-l border-rule bg-sheet">
         {m ? (
           <>
-            <SolvePanel modelId={m.id} modelField={m.field} onFinished={(r) => setRunId(r.id)} readOnly={readOnly} />
-            {run ? <Findings run={run} modelName={m.name} chosen={chosen} onChoose={setChosen} /> : null}
-            <RunHistory runs={(runs.data ?? []) as RunRecord[]} selected={run?.id} onSelect={setRunId} />
+            <div className="no-print flex gap-1 border-b border-rule px-3 py-1.5" role="tablist" aria-label="Side panels">
+              {(
+                [
+                  ['solve', 'Reduce & solve'],
+                  ['readings', 'Readings'],
+                ] as const
+              ).map(([id, label]) => (
+                <button key={id} role="tab" aria-selected={side === id} onClick={() => setSide(id)} className={`rounded px-2 py-0.5 text-sm ${side === id ? 'bg-ink text-paper' : 'hover:bg-rule-soft'}`}>
+                  {label}
+                </button>
+              ))}
+            </div>
+            {/* Both stay mounted, so a run or a check in progress keeps its progress and cancel when the other panel is shown. */}
+            <div hidden={side !== 'solve'}>
+              <SolvePanel modelId={m.id} modelField={m.field} onFinished={(r) => setRunId(r.id)} readOnly={readOnly} />
+              {run ? <Findings run={run} modelName={m.name} chosen={chosen} onChoose={setChosen} /> : null}
+              <RunHistory runs={(runs.data ?? []) as RunRecord[]} selected={run?.id} onSelect={setRunId} />
+            </div>
+            <div hidden={side !== 'readings'}>
+              <ReadingsPanel modelId={m.id} modelName={m.name} readOnly={readOnly} check={freshCheck} onCheck={onCheck} picked={picked?.key} onPick={onPick} />
+            </div>
           </>
         ) : (
           <p className="p-4 text-sm text-ink-soft">Open a model to reduce and solve it.</p>

@@ -1,6 +1,7 @@
 import * as Comlink from 'comlink';
 import type { ComputeService, Progress, RunRecord } from '../compute/computeService';
 import type { KitOutcome, MeshResult, MeshSettings } from '../compute/kitService';
+import type { ReadingsCheckOutcome } from '../compute/readingsService';
 import type { RunSettings } from '../store';
 
 type Remote = Comlink.Remote<ComputeService>;
@@ -71,4 +72,17 @@ export function meshThroughWorker(name: string, data: string | Blob, settings: M
 /** Import through the worker with progress, so a large file never blocks the page. */
 export function importThroughWorker(projectId: string, file: File, onProgress: (p: Progress) => void) {
   return engine().importFile(projectId, file.name, file, Comlink.proxy(onProgress));
+}
+
+/** Check a saved readings file against its model in the worker; cancel terminates the worker, as for a run (nothing is saved either way). */
+export function checkReadingsThroughWorker(modelId: string, readingsId: string, onProgress: (p: Progress) => void): { result: Promise<ReadingsCheckOutcome>; cancel(): void } {
+  const api = engine();
+  let cancel!: () => void;
+  const cancelled = new Promise<never>((_, reject) => {
+    cancel = () => {
+      resetEngine();
+      reject(new RunCancelled());
+    };
+  });
+  return { result: Promise.race([api.checkReadings(modelId, readingsId, Comlink.proxy(onProgress)), cancelled]), cancel };
 }

@@ -47,6 +47,11 @@ test('a viewer sees a read-only bench that says why, with import, editing, savin
   expect(await editor.getAttribute('disabled')).not.toBeNull();
   expect(await v.page.getByTestId('editor-save').isDisabled()).toBe(true);
   expect(await editor.locator('input').first().isDisabled()).toBe(true);
+  // Readings: a viewer sees and may check them, but not import (the import would be saved to the project).
+  await v.page.getByRole('tab', { name: 'Readings' }).click();
+  const readings = v.page.getByRole('region', { name: 'Readings' });
+  expect(await readings.getByRole('button', { name: 'Import readings' }).isDisabled()).toBe(true);
+  expect(await readings.textContent()).toContain('Viewers can check and export the readings kept here, but not import, rename or delete them.');
   await screenshot(v.page, 'viewer-read-only');
 
   // Nothing was queued for a push that the server would refuse.
