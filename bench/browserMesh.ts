@@ -23,6 +23,7 @@ import { chromium, type Page } from 'playwright-core';
 import { createApp } from '../server/createApp';
 import { importAny } from '../shared/import';
 import { analyseMesh } from '../shared/kits';
+import { torusObj } from './torusObj';
 
 const root = fileURLToPath(new URL('..', import.meta.url));
 const CHROMIUM = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
@@ -31,20 +32,6 @@ const N = Number(process.env.MESH_N ?? 708);
 const LONG_WAIT = 10 * 60_000;
 const json = process.argv.includes('--json');
 const log = (s: string) => (json ? process.stderr : process.stdout).write(s + '\n');
-
-/** A torus of N × N squares cut in two, as OBJ text with coordinates on the ring. */
-export function torusObj(n: number): string {
-  const out: string[] = [];
-  for (let i = 0; i < n; i++)
-    for (let j = 0; j < n; j++) {
-      const u = (2 * Math.PI * i) / n;
-      const w = (2 * Math.PI * j) / n;
-      out.push(`v ${((3 + Math.cos(w)) * Math.cos(u)).toFixed(4)} ${((3 + Math.cos(w)) * Math.sin(u)).toFixed(4)} ${Math.sin(w).toFixed(4)}`);
-    }
-  const id = (i: number, j: number) => (i % n) * n + (j % n) + 1;
-  for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) out.push(`f ${id(i, j)} ${id(i + 1, j)} ${id(i + 1, j + 1)}`, `f ${id(i, j)} ${id(i + 1, j + 1)} ${id(i, j + 1)}`);
-  return out.join('\n') + '\n';
-}
 
 /** Resident memory of every process descended from this one (Chromium's browser, renderers, GPU), in MB. */
 function descendantsRssMB(): number {

@@ -6,3 +6,6 @@ export { importModelText } from './modelFileText';
 export { detectFormat, type ImportFormat } from './detectFormat';
 export { importAny } from './importAny';
 export { constantSheafModel } from './constantSheafModel';
+export { readObj } from './meshObj';
+export { readOff } from './meshOff';
+export { meshModel, type MeshData, type MeshReadResult, type MeshReadOptions } from './MeshData';

@@ -2,6 +2,7 @@ import { ProblemList } from '../engine/model/Problem';
 import type { ImportOptions, ImportResult } from './ImportResult';
 import { LineTokens } from './LineTokens';
 import { MeshBuilder } from './MeshBuilder';
+import { meshImport, type MeshReadOptions, type MeshReadResult } from './MeshData';
 import { parseFloatToken, parseIntToken } from './numberToken';
 import { Int32List } from './TypedList';
 
@@ -22,10 +23,15 @@ const SLASH = 47;
  * Never throws on bad input: problems come back located by line.
  */
 export function importObj(text: string, options: ImportOptions = {}): ImportResult {
-  const reader = new ObjReader(text);
+  return meshImport(readObj(text), options);
+}
+
+/** As {@link importObj}, giving the mesh in typed arrays (see {@link MeshData}) instead of a model file. */
+export function readObj(text: string, options: MeshReadOptions = {}): MeshReadResult {
+  const reader = new ObjReader(text, options.progress);
   reader.read();
   if (reader.problems.any) return { problems: reader.problems.items };
-  return { model: reader.mesh.toModel(options) };
+  return { mesh: reader.mesh.toData() };
 }
 
 class ObjReader {
@@ -37,14 +43,20 @@ class ObjReader {
   /** (line, index) of positive indices past the vertices read so far, checked at the end. */
   private readonly ahead = new Int32List(16);
 
-  constructor(private readonly text: string) {
+  constructor(
+    private readonly text: string,
+    private readonly progress?: (fraction: number) => void,
+  ) {
     this.tokens = new LineTokens(text);
   }
 
   read(): void {
     const { tokens, text, problems } = this;
+    const progress = this.progress;
     let statements = 0;
     while (!problems.full && tokens.nextLine()) {
+      // A check per line is cheap; a call per 2^16 lines keeps the worker's messages few.
+      if (progress && (tokens.line & 0xffff) === 0) progress(tokens.offset / text.length);
       if (!tokens.next()) continue;
       statements++;
       if (tokens.end - tokens.start !== 1) continue;

@@ -2,6 +2,7 @@ import { ProblemList } from '../engine/model/Problem';
 import type { ImportOptions, ImportResult } from './ImportResult';
 import { LineTokens } from './LineTokens';
 import { MeshBuilder } from './MeshBuilder';
+import { meshImport, type MeshReadOptions, type MeshReadResult } from './MeshData';
 import { parseFloatToken, parseIntToken } from './numberToken';
 
 // Geomview's header keywords whose vertex lines start with x y z; the extra
@@ -19,11 +20,17 @@ const HEADER = /^(ST)?C?N?OFF$/;
  * Never throws on bad input: problems come back located by line.
  */
 export function importOff(text: string, options: ImportOptions = {}): ImportResult {
+  return meshImport(readOff(text), options);
+}
+
+/** As {@link importOff}, giving the mesh in typed arrays (see {@link MeshData}) instead of a model file. */
+export function readOff(text: string, options: MeshReadOptions = {}): MeshReadResult {
+  const progress = options.progress;
   const problems = new ProblemList();
   const mesh = new MeshBuilder();
   const tokens = new LineTokens(text);
   const where = (): string => `line ${tokens.line}`;
-  const fail = (message: string): ImportResult => {
+  const fail = (message: string): MeshReadResult => {
     problems.add(where(), message);
     return { problems: problems.items };
   };
@@ -34,6 +41,8 @@ export function importOff(text: string, options: ImportOptions = {}): ImportResu
   const [nv, nf] = counts;
 
   for (let v = 0; v < nv && !problems.full; v++) {
+    // A check per line is cheap; a call per 2^16 lines keeps the worker's messages few.
+    if (progress && (v & 0xffff) === 0xffff) progress(tokens.offset / text.length);
     if (!nextContentLine(tokens)) return fail(`the file ends after ${v} of ${nv} vertices`);
     xyz.fill(NaN);
     for (let i = 0; i < 3; i++) {
@@ -52,6 +61,7 @@ export function importOff(text: string, options: ImportOptions = {}): ImportResu
 
   let corners = new Int32Array(16);
   for (let f = 0; f < nf && !problems.full; f++) {
+    if (progress && (f & 0xffff) === 0xffff) progress(tokens.offset / text.length);
     if (!nextContentLine(tokens)) return fail(`the file ends after ${f} of ${nf} faces`);
     const n = parseIntToken(text, tokens.start, tokens.end);
     if (!(n >= 0)) {
@@ -94,7 +104,7 @@ export function importOff(text: string, options: ImportOptions = {}): ImportResu
     problems.add(where(), `unexpected content after the last of ${nf} faces`);
   }
   if (problems.any) return { problems: problems.items };
-  return { model: mesh.toModel(options) };
+  return { mesh: mesh.toData() };
 }
 
 /** Move to the next line that has a token, leaving that token current. */

@@ -4,6 +4,9 @@ import { HomologyCycles } from '../../engine/data/cycleRepresentatives';
 import type { FieldSpec } from '../../engine/fields/FieldSpec';
 import type { ModelFile } from '../../engine/model/ModelFile';
 import { readModelOrThrow } from '../../engine/model/readModel';
+import type { Sheaf } from '../../engine/model/Sheaf';
+import type { MeshData } from '../../import/MeshData';
+import { meshSheaf } from './meshSheaf';
 import { denseIndexer } from '../../engine/model/readSimplices';
 import type { Control } from '../../engine/reduce/Cancelled';
 import { surfaceChecks, windingConsistent } from './surfaceChecks';
@@ -61,6 +64,28 @@ export function analyseMesh(model: ModelFile, options: MeshOptions = {}): MeshRe
   const t0 = performance.now();
   const field = options.field ?? { kind: 'prime', p: 2 };
   const sheaf = readModelOrThrow(model, { field });
+  const dense = denseIndexer(sheaf.complex.vertexIds);
+  let n = 0;
+  for (const s of model.simplices) if (s.length === 3) n++;
+  const listed = new Int32Array(3 * n);
+  let w = 0;
+  for (const s of model.simplices) if (s.length === 3) for (let i = 0; i < 3; i++) listed[w++] = dense(s[i]);
+  return analyseSheaf(sheaf, listed, field, options, t0);
+}
+
+/**
+ * {@link analyseMesh} on a mesh read into typed arrays (`readObj`,
+ * `readOff`): the same report, without building a model file first.
+ */
+export function analyseMeshData(mesh: MeshData, options: MeshOptions = {}): MeshReport {
+  const t0 = performance.now();
+  const field = options.field ?? { kind: 'prime', p: 2 };
+  // Every vertex is a cell (unused ones as points), so dense indices are the file's own.
+  return analyseSheaf(meshSheaf(mesh, field), mesh.triangles, field, options, t0);
+}
+
+/** `listed`: the file's triangles as dense vertex indices in its corner order, for the winding check. */
+function analyseSheaf(sheaf: Sheaf<unknown>, listed: Int32Array, field: FieldSpec, options: MeshOptions, t0: number): MeshReport {
   const cx = sheaf.complex;
   const run = computeCohomology(sheaf, { control: options.control });
   const t1 = performance.now();
@@ -69,12 +94,7 @@ export function analyseMesh(model: ModelFile, options: MeshOptions = {}): MeshRe
   for (let k = 3; k < dims.length; k++) betti.push(dims[k]);
   const checks = surfaceChecks(cx);
   let winding: boolean | null = null;
-  if (cx.dimension === 2 && checks.nonManifoldEdges === 0) {
-    const dense = denseIndexer(cx.vertexIds);
-    const listed: number[] = [];
-    for (const s of model.simplices) if (s.length === 3) listed.push(dense(s[0]), dense(s[1]), dense(s[2]));
-    winding = windingConsistent(cx, listed);
-  }
+  if (cx.dimension === 2 && checks.nonManifoldEdges === 0) winding = windingConsistent(cx, listed);
   const cycles: ClassCycle[] = [];
   if (options.cycles !== false) {
     const F = sheaf.field;

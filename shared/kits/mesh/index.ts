@@ -1,2 +1,2 @@
-export { analyseMesh, type MeshReport, type MeshOptions, type ClassCycle } from './analyseMesh';
+export { analyseMesh, analyseMeshData, type MeshReport, type MeshOptions, type ClassCycle } from './analyseMesh';
 export { surfaceChecks, orientTriangles, windingConsistent, type SurfaceChecks } from './surfaceChecks';
