@@ -6,7 +6,7 @@
 import { computeCohomology } from '../shared/engine/computeCohomology';
 import { HomologyCycles } from '../shared/engine/data/cycleRepresentatives';
 import { readObj } from '../shared/import';
-import { analyseMeshData, surfaceChecks } from '../shared/kits/mesh';
+import { analyseMeshData, analyseMeshDataPacked, surfaceChecks } from '../shared/kits/mesh';
 import { meshSheaf } from '../shared/kits/mesh/meshSheaf';
 import { createKitService } from '../src/compute/kitService';
 import { torusObj } from './torusObj';
@@ -34,6 +34,8 @@ if (process.argv.includes('--cycles')) {
 }
 const r = time('analyseMeshData, no cycles', () => analyseMeshData(read.mesh, { field, cycles: false }));
 console.log(`  betti ${r.betti.join(', ')}; ms ${JSON.stringify(r.ms)}`);
+const rc = time('analyseMeshDataPacked, with cycles', () => analyseMeshDataPacked(read.mesh, { field }));
+console.log(`  betti ${rc.betti.join(', ')}; cycles of ${rc.cycles.map((c) => c.cellCount).join(', ')} cells; ms ${JSON.stringify(rc.ms)}`);
 const service = createKitService({ meshCycleLimit: process.argv.includes('--cycles') ? Infinity : 0 });
 const t0 = performance.now();
 service.meshTopology('torus.obj', text).then((out) => {

@@ -8,7 +8,7 @@ import { detectFormat, readObj, readOff } from '../../shared/import';
 import {
   adjustLevellingNet,
   analyseFrame,
-  analyseMeshData,
+  analyseMeshDataPacked,
   customStandard,
   levellingStandard,
   readLevellingCsv,
@@ -16,7 +16,7 @@ import {
   readCsvTable,
   type FrameReport,
   type LevellingReport,
-  type MeshReport,
+  type PackedMeshReport,
 } from '../../shared/kits';
 import { ProblemList } from '../../shared/engine/model/Problem';
 import { spectralLayout } from '../../shared/layout/spectralLayout';
@@ -42,7 +42,8 @@ export interface FrameResult {
 }
 
 export interface MeshResult extends MeshPicture {
-  report: MeshReport;
+  /** Cycles packed flat, so a 10^6-triangle void reaches the page as one array. */
+  report: PackedMeshReport;
   /** Cycles were skipped because the mesh is too large. */
   cyclesSkipped: string | null;
 }
@@ -65,7 +66,7 @@ export interface MeshSettings {
 }
 
 /** Representative cycles are found up to this many triangles; past it only the Betti numbers. */
-export const MESH_CYCLE_LIMIT = 200_000;
+export const MESH_CYCLE_LIMIT = 2_000_000;
 /** At most this many edges are sent back for the picture. */
 const MESH_DRAW_EDGES = 60_000;
 
@@ -140,7 +141,7 @@ export function createKitService(options: { meshCycleLimit?: number } = {}): Kit
       const mesh = read.mesh;
       const triangles = mesh.triangles.length / 3;
       const withCycles = triangles <= cycleLimit;
-      const report = analyseMeshData(mesh, {
+      const report = analyseMeshDataPacked(mesh, {
         field,
         cycles: withCycles,
         control: { progress: (phase, fraction) => onProgress?.({ phase, fraction }) },
