@@ -3,13 +3,14 @@ import type { ImportOptions, ImportResult } from './ImportResult';
 import { LineTokens } from './LineTokens';
 import { MeshBuilder } from './MeshBuilder';
 import { meshImport, type MeshReadOptions, type MeshReadResult } from './MeshData';
-import { parseFloatToken, parseIntToken } from './numberToken';
+import { parseFloatToken } from './numberToken';
+import { vertexIndex } from './objVertexIndex';
+import { scanObj } from './scanObj';
 import { Int32List } from './TypedList';
 
 const V = 118;
 const F = 102;
 const L = 108;
-const SLASH = 47;
 
 /**
  * Read a Wavefront OBJ mesh (the geometry subset: `v`, `f`, `l`) as the
@@ -28,6 +29,12 @@ export function importObj(text: string, options: ImportOptions = {}): ImportResu
 
 /** As {@link importObj}, giving the mesh in typed arrays (see {@link MeshData}) instead of a model file. */
 export function readObj(text: string, options: MeshReadOptions = {}): MeshReadResult {
+  const mesh = scanObj(text, options.progress);
+  return mesh ? { mesh } : readObjByLines(text, options);
+}
+
+/** The line-by-line reader behind {@link readObj}: slower, and it names the line of every problem. */
+export function readObjByLines(text: string, options: MeshReadOptions = {}): MeshReadResult {
   const reader = new ObjReader(text, options.progress);
   reader.read();
   if (reader.problems.any) return { problems: reader.problems.items };
@@ -179,23 +186,4 @@ function lineOf(where: string): number {
 
 function outOfRange(index: number, count: number): string {
   return `vertex index ${index} is out of range: the file has ${count} vertices`;
-}
-
-/** The vertex part of `v`, `v/vt`, `v/vt/vn` or `v//vn`; NaN when any part is malformed. */
-function vertexIndex(text: string, start: number, end: number): number {
-  let slash = start;
-  while (slash < end && text.charCodeAt(slash) !== SLASH) slash++;
-  const index = parseIntToken(text, start, slash);
-  if (slash === end || Number.isNaN(index)) return index;
-  let parts = 1;
-  let from = slash + 1;
-  while (from <= end) {
-    let to = from;
-    while (to < end && text.charCodeAt(to) !== SLASH) to++;
-    if (++parts > 3) return NaN;
-    // The texture part may be empty (`v//vn`), the normal part may not.
-    if (to > from ? Number.isNaN(parseIntToken(text, from, to)) : parts === 3 || to === end) return NaN;
-    from = to + 1;
-  }
-  return index;
 }
