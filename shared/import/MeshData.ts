@@ -27,6 +27,15 @@ export interface MeshReadOptions {
 }
 
 /**
+ * Characters read between two progress reports: a hundredth of the text, but
+ * not less than 64 KiB, so that a large file sends about a hundred messages
+ * from the worker and a small one hardly any.
+ */
+export function progressStep(textLength: number): number {
+  return Math.max(Math.ceil(textLength / 100), 1 << 16);
+}
+
+/**
  * The constant sheaf on the mesh as a model file. Vertices that no face or
  * edge uses are kept as isolated points: they are cells of the file's
  * complex.

@@ -2,7 +2,7 @@ import { ProblemList } from '../engine/model/Problem';
 import type { ImportOptions, ImportResult } from './ImportResult';
 import { LineTokens } from './LineTokens';
 import { MeshBuilder } from './MeshBuilder';
-import { meshImport, type MeshReadOptions, type MeshReadResult } from './MeshData';
+import { meshImport, progressStep, type MeshReadOptions, type MeshReadResult } from './MeshData';
 import { parseFloatToken } from './numberToken';
 import { vertexIndex } from './objVertexIndex';
 import { scanObj } from './scanObj';
@@ -60,10 +60,14 @@ class ObjReader {
   read(): void {
     const { tokens, text, problems } = this;
     const progress = this.progress;
+    const step = progressStep(text.length);
+    let mark = step;
     let statements = 0;
     while (!problems.full && tokens.nextLine()) {
-      // A check per line is cheap; a call per 2^16 lines keeps the worker's messages few.
-      if (progress && (tokens.line & 0xffff) === 0) progress(tokens.offset / text.length);
+      if (progress && tokens.offset >= mark) {
+        progress(Math.min(1, tokens.offset / text.length));
+        mark = tokens.offset + step;
+      }
       if (!tokens.next()) continue;
       statements++;
       if (tokens.end - tokens.start !== 1) continue;

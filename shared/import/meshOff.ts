@@ -2,7 +2,7 @@ import { ProblemList } from '../engine/model/Problem';
 import type { ImportOptions, ImportResult } from './ImportResult';
 import { LineTokens } from './LineTokens';
 import { MeshBuilder } from './MeshBuilder';
-import { meshImport, type MeshReadOptions, type MeshReadResult } from './MeshData';
+import { meshImport, progressStep, type MeshReadOptions, type MeshReadResult } from './MeshData';
 import { parseFloatToken, parseIntToken } from './numberToken';
 
 // Geomview's header keywords whose vertex lines start with x y z; the extra
@@ -40,9 +40,16 @@ export function readOff(text: string, options: MeshReadOptions = {}): MeshReadRe
   if (typeof counts === 'string') return fail(counts);
   const [nv, nf] = counts;
 
+  const step = progressStep(text.length);
+  let mark = step;
+  const report = () => {
+    if (progress && tokens.offset >= mark) {
+      progress(Math.min(1, tokens.offset / text.length));
+      mark = tokens.offset + step;
+    }
+  };
   for (let v = 0; v < nv && !problems.full; v++) {
-    // A check per line is cheap; a call per 2^16 lines keeps the worker's messages few.
-    if (progress && (v & 0xffff) === 0xffff) progress(tokens.offset / text.length);
+    report();
     if (!nextContentLine(tokens)) return fail(`the file ends after ${v} of ${nv} vertices`);
     xyz.fill(NaN);
     for (let i = 0; i < 3; i++) {
@@ -61,7 +68,7 @@ export function readOff(text: string, options: MeshReadOptions = {}): MeshReadRe
 
   let corners = new Int32Array(16);
   for (let f = 0; f < nf && !problems.full; f++) {
-    if (progress && (f & 0xffff) === 0xffff) progress(tokens.offset / text.length);
+    report();
     if (!nextContentLine(tokens)) return fail(`the file ends after ${f} of ${nf} faces`);
     const n = parseIntToken(text, tokens.start, tokens.end);
     if (!(n >= 0)) {

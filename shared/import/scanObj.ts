@@ -1,5 +1,5 @@
 import { MeshBuilder } from './MeshBuilder';
-import type { MeshData } from './MeshData';
+import { progressStep, type MeshData } from './MeshData';
 import { parseFloatToken } from './numberToken';
 import { vertexIndex } from './objVertexIndex';
 
@@ -37,9 +37,13 @@ export function scanObj(text: string, progress?: (fraction: number) => void): Me
   const mesh = new MeshBuilder();
   let corners = new Int32Array(16);
   let p = 0;
-  let line = 0;
+  const step = progressStep(n);
+  let mark = step;
   while (p < n) {
-    if ((++line & 0xffff) === 0 && progress) progress(p / n);
+    if (p >= mark && progress) {
+      progress(p / n);
+      mark = p + step;
+    }
     let c = text.charCodeAt(p);
     while (c === SPACE || c === TAB || c === CR || c === VT || c === FF) c = text.charCodeAt(++p);
     if (p >= n) break;

@@ -11,7 +11,6 @@ import { describe, expect, test } from 'vitest';
 import { readObj, readObjByLines } from '../../shared/import/meshObj';
 import { scanObj } from '../../shared/import/scanObj';
 
-const space = fc.constantFrom(' ', '  ', '\t', ' \t');
 const number = fc.oneof(
   fc.integer({ min: -999, max: 999 }).map(String),
   fc.double({ min: -1e3, max: 1e3, noNaN: true }).map((x) => x.toFixed(4)),
