@@ -1,10 +1,12 @@
 /**
  * The mesh kit on a 10^6-triangle torus in headless Chromium against the
- * same kit in Node, measured in one run: builds the client, serves it as
+ * same read and kit in Node (representative cycles included), measured in
+ * one run: builds the client, serves it as
  * `npm start` does, drops the OBJ on the mesh kit, and reports the time
  * from handing over the file to the Betti numbers on screen, the longest
  * main-thread task meanwhile (the kit computes in the Web Worker), the
- * peak resident memory of Chromium's processes, the progress phases shown,
+ * peak resident memory of Chromium's processes, the progress phases shown
+ * and how often the bar moved while the file was read, the cycles offered,
  * and whether cancel stops a second run.
  *
  *   npx tsx bench/browserMesh.ts [--json]
@@ -21,8 +23,9 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { chromium, type Page } from 'playwright-core';
 import { createApp } from '../server/createApp';
-import { importAny } from '../shared/import';
-import { analyseMesh } from '../shared/kits';
+import { readObj } from '../shared/import';
+import { analyseMeshDataPacked } from '../shared/kits';
+import { torusObj } from './torusObj';
 
 const root = fileURLToPath(new URL('..', import.meta.url));
 const CHROMIUM = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
@@ -31,20 +34,6 @@ const N = Number(process.env.MESH_N ?? 708);
 const LONG_WAIT = 10 * 60_000;
 const json = process.argv.includes('--json');
 const log = (s: string) => (json ? process.stderr : process.stdout).write(s + '\n');
-
-/** A torus of N × N squares cut in two, as OBJ text with coordinates on the ring. */
-export function torusObj(n: number): string {
-  const out: string[] = [];
-  for (let i = 0; i < n; i++)
-    for (let j = 0; j < n; j++) {
-      const u = (2 * Math.PI * i) / n;
-      const w = (2 * Math.PI * j) / n;
-      out.push(`v ${((3 + Math.cos(w)) * Math.cos(u)).toFixed(4)} ${((3 + Math.cos(w)) * Math.sin(u)).toFixed(4)} ${Math.sin(w).toFixed(4)}`);
-    }
-  const id = (i: number, j: number) => (i % n) * n + (j % n) + 1;
-  for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) out.push(`f ${id(i, j)} ${id(i + 1, j)} ${id(i + 1, j + 1)}`, `f ${id(i, j)} ${id(i + 1, j + 1)} ${id(i, j + 1)}`);
-  return out.join('\n') + '\n';
-}
 
 /** Resident memory of every process descended from this one (Chromium's browser, renderers, GPU), in MB. */
 function descendantsRssMB(): number {
@@ -87,13 +76,18 @@ async function main() {
   writeFileSync(file, text);
   log(`mesh: torus ${N}×${N}, ${triangles.toLocaleString('en-US')} triangles, ${(text.length / 1e6).toFixed(1)} MB of OBJ`);
 
-  // The baseline, in this run: the same kit in Node, import included, no cycles (as the app above its cycle limit).
+  // The baseline, in this run: the same read and kit in Node as the worker runs them, representative cycles included.
   const n0 = performance.now();
-  const imported = importAny('torus.obj', text, { field: { kind: 'prime', p: 2 } });
-  if (!('model' in imported)) throw new Error('the bench mesh did not import');
-  const nodeReport = analyseMesh(imported.model, { cycles: false });
+  const read = readObj(text);
+  if (!('mesh' in read)) throw new Error('the bench mesh did not read');
+  const nodeReadMs = performance.now() - n0;
+  const nodeReport = analyseMeshDataPacked(read.mesh);
   const nodeMs = performance.now() - n0;
-  log(`Node: import + mesh kit ${fmt(nodeMs)}, Betti (${nodeReport.betti.join(', ')})`);
+  log(`Node: read + mesh kit with cycles ${fmt(nodeMs)}, Betti (${nodeReport.betti.join(', ')}), cycles of ${nodeReport.cycles.map((c) => c.cellCount).join(', ')} cells`);
+  const m0 = performance.now();
+  analyseMeshDataPacked(read.mesh, { cycles: false });
+  const nodeNoCyclesMs = nodeReadMs + performance.now() - m0;
+  log(`Node: read ${fmt(nodeReadMs)}; read + mesh kit without cycles ${fmt(nodeNoCyclesMs)}`);
 
   if (!process.env.SKIP_BUILD) {
     log('building the client …');
@@ -110,9 +104,10 @@ async function main() {
   try {
     const context = await browser.newContext({ viewport: { width: 1440, height: 900 } });
     await context.addInitScript(() => {
-      const w = window as unknown as { __longTasks: LongTask[]; __phases: string[] };
+      const w = window as unknown as { __longTasks: LongTask[]; __phases: string[]; __readBar: string[] };
       w.__longTasks = [];
       w.__phases = [];
+      w.__readBar = [];
       new PerformanceObserver((list) => {
         for (const e of list.getEntries()) w.__longTasks.push({ start: e.startTime, duration: e.duration });
       }).observe({ type: 'longtask', buffered: true });
@@ -120,7 +115,10 @@ async function main() {
       new MutationObserver(() => {
         const t = document.querySelector('[data-testid="mesh-progress"] p')?.textContent;
         if (t && w.__phases[w.__phases.length - 1] !== t) w.__phases.push(t);
-      }).observe(document, { childList: true, subtree: true, characterData: true });
+        // Positions of the bar while the file is read: the reader's own progress.
+        const bar = document.querySelector('[data-testid="mesh-progress"] [role="progressbar"]')?.getAttribute('aria-valuenow');
+        if (t && /: parse\b/.test(t) && bar && w.__readBar[w.__readBar.length - 1] !== bar) w.__readBar.push(bar);
+      }).observe(document, { childList: true, subtree: true, characterData: true, attributes: true, attributeFilter: ['aria-valuenow'] });
     });
     const page = await context.newPage();
     const pageErrors: string[] = [];
@@ -141,6 +139,9 @@ async function main() {
     await page.waitForTimeout(1000);
     const tasks = await longTasks(page, t0Page, t1Page + 1000);
     const phases = await page.evaluate(() => (window as unknown as { __phases: string[] }).__phases);
+    const readBar = await page.evaluate(() => (window as unknown as { __readBar: string[] }).__readBar);
+    const cycleOptions = await page.locator('#mesh-cycle option').allTextContents();
+    const skipped = await page.getByTestId('mesh-cycles-skipped').count();
 
     // Keep it in a project: the 35 MB file is packed and stored from the page.
     const s0Page = await page.evaluate(() => performance.now());
@@ -172,6 +173,11 @@ async function main() {
       triangles,
       objMB: Math.round(text.length / 1e5) / 10,
       nodeMs: Math.round(nodeMs),
+      nodeReadMs: Math.round(nodeReadMs),
+      nodeNoCyclesMs: Math.round(nodeNoCyclesMs),
+      cycles: cycleOptions,
+      cyclesSkipped: skipped > 0,
+      readBarPositions: readBar.length,
       browserMs: Math.round(browserMs),
       kitMsInWorker: kitMs ? Number(kitMs[1]) : null,
       ratio: Math.round((browserMs / nodeMs) * 100) / 100,
@@ -194,6 +200,8 @@ async function main() {
     log(`longest main-thread task meanwhile                     ${longest.toFixed(0)} ms (${tasks.length} tasks > 50 ms)`);
     log(`peak resident memory of Chromium's processes           ${result.peakMB} MB (idle on the kit page: ${result.idleMB} MB)`);
     log(`progress shown                                         ${phases.join(' | ')}`);
+    log(`bar positions while the file is read                   ${readBar.length} (${readBar.join(', ')} %)`);
+    log(`representative cycles on screen                        ${skipped ? 'skipped' : cycleOptions.join(' | ')}`);
     log(`picture                                                ${note ?? '(no note)'}`);
     log(`save input and report to a project                  ${fmt(saveMs)} (longest main-thread task ${result.saveLongestTaskMs} ms)`);
     log(`cancel a second run after 1 s                          stopped in ${cancelMs === null ? '—' : fmt(cancelMs)}, said on screen: ${cancelledShown}`);

@@ -6,7 +6,7 @@ import { readReadingsOrThrow } from '../shared/engine/data/readReadings';
 import type { FieldSpec } from '../shared/engine/fields/FieldSpec';
 import { ModelError, type Problem } from '../shared/engine/model/Problem';
 import { readModelOrThrow } from '../shared/engine/model/readModel';
-import { detectFormat, importAny } from '../shared/import';
+import { detectFormat, readObj, readOff } from '../shared/import';
 import { analyseFrame, readFrameCsv } from '../shared/kits/frame';
 import {
   adjustLevellingNet,
@@ -16,7 +16,7 @@ import {
   readLevellingCsv,
   type LevellingStandard,
 } from '../shared/kits/levelling';
-import { analyseMesh } from '../shared/kits/mesh';
+import { analyseMeshData } from '../shared/kits/mesh';
 import { UsageError } from './UsageError';
 
 /** `level-net STATIONS.csv LINES.csv`: the adjustment report, or ModelError naming the first bad cell. */
@@ -46,9 +46,9 @@ export function meshCommand(path: string, text: string, options: { field?: Field
   if (format !== 'obj' && format !== 'off') throw new UsageError(`${path}: the mesh command reads OBJ or OFF meshes`);
   const field = options.field ?? { kind: 'prime', p: 2 };
   if (field.kind === 'real') throw new UsageError('--field: the mesh command works over prime:P or rational');
-  const imported = importAny(path, text, { field });
-  if ('problems' in imported) throw new ModelError(imported.problems.map((p: Problem) => ({ where: p.where ? `${path} ${p.where}` : path, message: p.message })));
-  return analyseMesh(imported.model, { field, cycles: options.cycles });
+  const read = (format === 'obj' ? readObj : readOff)(text);
+  if ('problems' in read) throw new ModelError(read.problems.map((p: Problem) => ({ where: p.where ? `${path} ${p.where}` : path, message: p.message })));
+  return analyseMeshData(read.mesh, { field, cycles: options.cycles });
 }
 
 /** `readings FILE READINGS.json`: consistency radius and nearest global section. */

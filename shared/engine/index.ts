@@ -11,7 +11,7 @@ export { MODEL_FORMAT, MODEL_VERSION } from './model/ModelFile';
 export type { Problem } from './model/Problem';
 export { ModelError, formatProblem } from './model/Problem';
 export type { Sheaf } from './model/Sheaf';
-export { readModel, readModelOrThrow, readModelText, readModelTextOrThrow } from './model/readModel';
+export { readModel, readModelOrThrow, readModelText, readModelTextOrThrow, readModelWithSimplices } from './model/readModel';
 export { parseFieldOption } from './model/readField';
 export type { CohomologyReport, MorseStats, PhaseTimes, Method } from './CohomologyReport';
 export { computeCohomology, type Computation, type ComputeOptions } from './computeCohomology';

@@ -35,6 +35,11 @@ export class LineTokens {
     this.separator = text.indexOf('\n') < 0 && text.indexOf('\r') >= 0 ? '\r' : '\n';
   }
 
+  /** Where the next line starts in `text` (progress through the file). */
+  get offset(): number {
+    return this.following;
+  }
+
   /** Move to the next line; false when the text is exhausted. */
   nextLine(): boolean {
     const text = this.text;

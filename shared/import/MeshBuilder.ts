@@ -1,13 +1,11 @@
-import type { ModelFile, VertexInfo } from '../engine';
-import { constantSheafModel } from './constantSheafModel';
-import type { ImportOptions } from './ImportResult';
+import type { MeshData } from './MeshData';
 import { Float64List, Int32List } from './TypedList';
 
 /**
  * A surface mesh while it is being read: positions, triangles and edges in
- * flat typed arrays (0-based vertex ids), turned into a model file at the
- * end. Polygons are fan-triangulated from their first corner, which keeps
- * the topology of any simple polygon whatever its shape.
+ * flat typed arrays (0-based vertex ids). Polygons are fan-triangulated
+ * from their first corner, which keeps the topology of any simple polygon
+ * whatever its shape.
  */
 export class MeshBuilder {
   /** x, y, z of vertex i at 3i, 3i+1, 3i+2. */
@@ -50,29 +48,14 @@ export class MeshBuilder {
     return -1;
   }
 
-  /**
-   * The constant sheaf on the mesh. Vertices that no face or edge uses are
-   * kept as isolated points: they are cells of the file's complex.
-   */
-  toModel(options: ImportOptions = {}): ModelFile {
-    const n = this.vertexCount;
-    const used = new Uint8Array(n);
-    const simplices: number[][] = [];
-    const t = this.triangles.data;
-    for (let i = 0; i < this.triangles.length; i += 3) {
-      simplices.push([t[i], t[i + 1], t[i + 2]]);
-      used[t[i]] = used[t[i + 1]] = used[t[i + 2]] = 1;
-    }
-    const e = this.edges.data;
-    for (let i = 0; i < this.edges.length; i += 2) {
-      simplices.push([e[i], e[i + 1]]);
-      used[e[i]] = used[e[i + 1]] = 1;
-    }
-    for (let v = 0; v < n; v++) if (!used[v]) simplices.push([v]);
-    const p = this.positions.data;
-    const vertices: VertexInfo[] = new Array(n);
-    for (let v = 0; v < n; v++) vertices[v] = { id: v, x: p[3 * v], y: p[3 * v + 1], z: p[3 * v + 2] };
-    return constantSheafModel(simplices, options, vertices);
+  /** The mesh read so far; the arrays are views of the builder's buffers, trimmed to length. */
+  toData(): MeshData {
+    return {
+      vertexCount: this.vertexCount,
+      positions: this.positions.data.subarray(0, this.positions.length),
+      triangles: this.triangles.data.subarray(0, this.triangles.length),
+      edges: this.edges.data.subarray(0, this.edges.length),
+    };
   }
 }
 

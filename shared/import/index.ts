@@ -8,3 +8,6 @@ export { importAny } from './importAny';
 export { constantSheafModel } from './constantSheafModel';
 export { readReadingsCsv, type ReadingsCsvResult } from './readingsCsv';
 export { readReadingsText, type ReadReadingsTextResult } from './readReadingsText';
+export { readObj } from './meshObj';
+export { readOff } from './meshOff';
+export { meshModel, type MeshData, type MeshReadResult, type MeshReadOptions } from './MeshData';

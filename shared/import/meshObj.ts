@@ -2,13 +2,15 @@ import { ProblemList } from '../engine/model/Problem';
 import type { ImportOptions, ImportResult } from './ImportResult';
 import { LineTokens } from './LineTokens';
 import { MeshBuilder } from './MeshBuilder';
-import { parseFloatToken, parseIntToken } from './numberToken';
+import { meshImport, progressStep, type MeshReadOptions, type MeshReadResult } from './MeshData';
+import { parseFloatToken } from './numberToken';
+import { vertexIndex } from './objVertexIndex';
+import { scanObj } from './scanObj';
 import { Int32List } from './TypedList';
 
 const V = 118;
 const F = 102;
 const L = 108;
-const SLASH = 47;
 
 /**
  * Read a Wavefront OBJ mesh (the geometry subset: `v`, `f`, `l`) as the
@@ -22,10 +24,21 @@ const SLASH = 47;
  * Never throws on bad input: problems come back located by line.
  */
 export function importObj(text: string, options: ImportOptions = {}): ImportResult {
-  const reader = new ObjReader(text);
+  return meshImport(readObj(text), options);
+}
+
+/** As {@link importObj}, giving the mesh in typed arrays (see {@link MeshData}) instead of a model file. */
+export function readObj(text: string, options: MeshReadOptions = {}): MeshReadResult {
+  const mesh = scanObj(text, options.progress);
+  return mesh ? { mesh } : readObjByLines(text, options);
+}
+
+/** The line-by-line reader behind {@link readObj}: slower, and it names the line of every problem. */
+export function readObjByLines(text: string, options: MeshReadOptions = {}): MeshReadResult {
+  const reader = new ObjReader(text, options.progress);
   reader.read();
   if (reader.problems.any) return { problems: reader.problems.items };
-  return { model: reader.mesh.toModel(options) };
+  return { mesh: reader.mesh.toData() };
 }
 
 class ObjReader {
@@ -37,14 +50,24 @@ class ObjReader {
   /** (line, index) of positive indices past the vertices read so far, checked at the end. */
   private readonly ahead = new Int32List(16);
 
-  constructor(private readonly text: string) {
+  constructor(
+    private readonly text: string,
+    private readonly progress?: (fraction: number) => void,
+  ) {
     this.tokens = new LineTokens(text);
   }
 
   read(): void {
     const { tokens, text, problems } = this;
+    const progress = this.progress;
+    const step = progressStep(text.length);
+    let mark = step;
     let statements = 0;
     while (!problems.full && tokens.nextLine()) {
+      if (progress && tokens.offset >= mark) {
+        progress(Math.min(1, tokens.offset / text.length));
+        mark = tokens.offset + step;
+      }
       if (!tokens.next()) continue;
       statements++;
       if (tokens.end - tokens.start !== 1) continue;
@@ -167,23 +190,4 @@ function lineOf(where: string): number {
 
 function outOfRange(index: number, count: number): string {
   return `vertex index ${index} is out of range: the file has ${count} vertices`;
-}
-
-/** The vertex part of `v`, `v/vt`, `v/vt/vn` or `v//vn`; NaN when any part is malformed. */
-function vertexIndex(text: string, start: number, end: number): number {
-  let slash = start;
-  while (slash < end && text.charCodeAt(slash) !== SLASH) slash++;
-  const index = parseIntToken(text, start, slash);
-  if (slash === end || Number.isNaN(index)) return index;
-  let parts = 1;
-  let from = slash + 1;
-  while (from <= end) {
-    let to = from;
-    while (to < end && text.charCodeAt(to) !== SLASH) to++;
-    if (++parts > 3) return NaN;
-    // The texture part may be empty (`v//vn`), the normal part may not.
-    if (to > from ? Number.isNaN(parseIntToken(text, from, to)) : parts === 3 || to === end) return NaN;
-    from = to + 1;
-  }
-  return index;
 }

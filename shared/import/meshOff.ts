@@ -2,6 +2,7 @@ import { ProblemList } from '../engine/model/Problem';
 import type { ImportOptions, ImportResult } from './ImportResult';
 import { LineTokens } from './LineTokens';
 import { MeshBuilder } from './MeshBuilder';
+import { meshImport, progressStep, type MeshReadOptions, type MeshReadResult } from './MeshData';
 import { parseFloatToken, parseIntToken } from './numberToken';
 
 // Geomview's header keywords whose vertex lines start with x y z; the extra
@@ -19,11 +20,17 @@ const HEADER = /^(ST)?C?N?OFF$/;
  * Never throws on bad input: problems come back located by line.
  */
 export function importOff(text: string, options: ImportOptions = {}): ImportResult {
+  return meshImport(readOff(text), options);
+}
+
+/** As {@link importOff}, giving the mesh in typed arrays (see {@link MeshData}) instead of a model file. */
+export function readOff(text: string, options: MeshReadOptions = {}): MeshReadResult {
+  const progress = options.progress;
   const problems = new ProblemList();
   const mesh = new MeshBuilder();
   const tokens = new LineTokens(text);
   const where = (): string => `line ${tokens.line}`;
-  const fail = (message: string): ImportResult => {
+  const fail = (message: string): MeshReadResult => {
     problems.add(where(), message);
     return { problems: problems.items };
   };
@@ -33,7 +40,16 @@ export function importOff(text: string, options: ImportOptions = {}): ImportResu
   if (typeof counts === 'string') return fail(counts);
   const [nv, nf] = counts;
 
+  const step = progressStep(text.length);
+  let mark = step;
+  const report = () => {
+    if (progress && tokens.offset >= mark) {
+      progress(Math.min(1, tokens.offset / text.length));
+      mark = tokens.offset + step;
+    }
+  };
   for (let v = 0; v < nv && !problems.full; v++) {
+    report();
     if (!nextContentLine(tokens)) return fail(`the file ends after ${v} of ${nv} vertices`);
     xyz.fill(NaN);
     for (let i = 0; i < 3; i++) {
@@ -52,6 +68,7 @@ export function importOff(text: string, options: ImportOptions = {}): ImportResu
 
   let corners = new Int32Array(16);
   for (let f = 0; f < nf && !problems.full; f++) {
+    report();
     if (!nextContentLine(tokens)) return fail(`the file ends after ${f} of ${nf} faces`);
     const n = parseIntToken(text, tokens.start, tokens.end);
     if (!(n >= 0)) {
@@ -94,7 +111,7 @@ export function importOff(text: string, options: ImportOptions = {}): ImportResu
     problems.add(where(), `unexpected content after the last of ${nf} faces`);
   }
   if (problems.any) return { problems: problems.items };
-  return { model: mesh.toModel(options) };
+  return { mesh: mesh.toData() };
 }
 
 /** Move to the next line that has a token, leaving that token current. */

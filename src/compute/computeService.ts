@@ -16,6 +16,7 @@ import {
 import { detectFormat, importAny } from '../../shared/import';
 import { spectralLayout } from '../../shared/layout/spectralLayout';
 import type { GluefieldDb, ModelRow, NewKitResult, RunRow, RunSettings, StoredBasis } from '../store';
+import { isPackedMeshReport, unpackMeshReport } from '../../shared/kits/mesh';
 import { getModel, loadModelText, saveKitResult, saveModelVersion, saveNewModel, saveRun } from '../store';
 import { recordModelSaved, recordRunSaved } from '../sync/recordChange';
 import { createKitService, type KitService } from './kitService';
@@ -126,7 +127,9 @@ export function createComputeService(db: GluefieldDb): ComputeService {
 
     async saveKitResult(input) {
       const inputs = await Promise.all(input.inputs.map(async (f) => ({ name: f.name, text: typeof f.data === 'string' ? f.data : await f.data.text() })));
-      const row = await saveKitResult(db, { ...input, inputs });
+      // The mesh kit's page holds its cycles packed; the saved report keeps the kit's own form.
+      const report = isPackedMeshReport(input.report) ? unpackMeshReport(input.report) : input.report;
+      const row = await saveKitResult(db, { ...input, inputs, report });
       return { id: row.id, createdAt: row.createdAt, engineVersion: row.engineVersion };
     },
 

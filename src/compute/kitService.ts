@@ -4,11 +4,11 @@
  * pictures need (positions, edges) so the page draws without re-parsing.
  */
 import type { FieldSpec, Problem } from '../../shared/engine';
-import { detectFormat, importAny } from '../../shared/import';
+import { detectFormat, readObj, readOff } from '../../shared/import';
 import {
   adjustLevellingNet,
   analyseFrame,
-  analyseMesh,
+  analyseMeshDataPacked,
   customStandard,
   levellingStandard,
   readLevellingCsv,
@@ -16,11 +16,12 @@ import {
   readCsvTable,
   type FrameReport,
   type LevellingReport,
-  type MeshReport,
+  type PackedMeshReport,
 } from '../../shared/kits';
 import { ProblemList } from '../../shared/engine/model/Problem';
 import { spectralLayout } from '../../shared/layout/spectralLayout';
 import type { ProgressSink } from './computeService';
+import { meshPicture, type MeshPicture } from './meshPicture';
 
 export type KitOutcome<T> = { ok: true; result: T } | { ok: false; problems: Problem[] };
 
@@ -40,16 +41,9 @@ export interface FrameResult {
   bars: { id: string; from: string; to: string }[];
 }
 
-export interface MeshResult {
-  report: MeshReport;
-  /** Projected x, y per vertex in [0, 1]² (y down), dense order. */
-  positions: Float32Array;
-  /** Original vertex id per dense index. */
-  vertexIds: Int32Array;
-  /** Dense vertex index pairs of the drawn edges (all, or a sample for very large meshes). */
-  edges: Int32Array;
-  /** The picture takes the edges of every `drawStride`-th cell of the file (1: all of them). */
-  drawStride: number;
+export interface MeshResult extends MeshPicture {
+  /** Cycles packed flat, so a 10^6-triangle void reaches the page as one array. */
+  report: PackedMeshReport;
   /** Cycles were skipped because the mesh is too large. */
   cyclesSkipped: string | null;
 }
@@ -72,7 +66,7 @@ export interface MeshSettings {
 }
 
 /** Representative cycles are found up to this many triangles; past it only the Betti numbers. */
-export const MESH_CYCLE_LIMIT = 200_000;
+export const MESH_CYCLE_LIMIT = 2_000_000;
 /** At most this many edges are sent back for the picture. */
 const MESH_DRAW_EDGES = 60_000;
 
@@ -140,20 +134,20 @@ export function createKitService(options: { meshCycleLimit?: number } = {}): Kit
       const text = typeof data === 'string' ? data : await data.text();
       const format = detectFormat(fileName, text.slice(0, 4096));
       if (format !== 'obj' && format !== 'off') return { ok: false, problems: [{ where: fileName, message: 'the mesh kit reads OBJ or OFF meshes' }] };
-      onProgress?.({ phase: 'parse', fraction: 0.1 });
+      onProgress?.({ phase: 'parse', fraction: 0 });
       const field: FieldSpec = fieldKey === 'rational' ? { kind: 'rational' } : { kind: 'prime', p: 2 };
-      const imported = importAny(fileName, text, { field });
-      if ('problems' in imported) return { ok: false, problems: imported.problems.map((p) => ({ where: p.where ? `${fileName} ${p.where}` : fileName, message: p.message })) };
-      const model = imported.model;
-      const triangles = model.simplices.reduce((n, s) => n + (s.length === 3 ? 1 : 0), 0);
+      const read = (format === 'obj' ? readObj : readOff)(text, { progress: (fraction) => onProgress?.({ phase: 'parse', fraction }) });
+      if ('problems' in read) return { ok: false, problems: read.problems.map((p) => ({ where: p.where ? `${fileName} ${p.where}` : fileName, message: p.message })) };
+      const mesh = read.mesh;
+      const triangles = mesh.triangles.length / 3;
       const withCycles = triangles <= cycleLimit;
-      const report = analyseMesh(model, {
+      const report = analyseMeshDataPacked(mesh, {
         field,
         cycles: withCycles,
         control: { progress: (phase, fraction) => onProgress?.({ phase, fraction }) },
       });
       onProgress?.({ phase: 'picture', fraction: 1 });
-      return { ok: true, result: { report, ...meshPicture(model.simplices, model.vertices ?? []), cyclesSkipped: withCycles ? null : `representative cycles are skipped above ${cycleLimit.toLocaleString('en')} triangles (this mesh has ${triangles.toLocaleString('en')}); the Betti numbers are complete` } };
+      return { ok: true, result: { report, ...meshPicture(mesh, MESH_DRAW_EDGES), cyclesSkipped: withCycles ? null : `representative cycles are skipped above ${cycleLimit.toLocaleString('en')} triangles (this mesh has ${triangles.toLocaleString('en')}); the Betti numbers are complete` } };
     },
   };
 }
@@ -189,54 +183,4 @@ function fitUnit(points: [number, number][]): number[] {
   const cx = (span - (maxX - minX)) / 2;
   const cy = (span - (maxY - minY)) / 2;
   return points.flatMap(([x, y]) => [0.05 + (0.9 * (x - minX + cx)) / span, 0.95 - (0.9 * (y - minY + cy)) / span]);
-}
-
-/** A fixed oblique view (rotate 35° about z, tilt 30°), edges deduplicated and capped for drawing. */
-function meshPicture(simplices: number[][], vertices: { id: number; x?: number; y?: number; z?: number }[]) {
-  const ids = new Map<number, number>();
-  const dense = (id: number) => {
-    let i = ids.get(id);
-    if (i === undefined) ids.set(id, (i = ids.size));
-    return i;
-  };
-  const seen = new Set<number>();
-  const edges: number[] = [];
-  for (const s of simplices) for (const v of s) dense(v);
-  const n = ids.size;
-  // Past the cap, every stride-th cell, so a sample of the whole mesh is drawn rather than one corner of it.
-  let pairs = 0;
-  for (const s of simplices) pairs += (s.length * (s.length - 1)) / 2;
-  const stride = Math.max(1, Math.ceil(pairs / MESH_DRAW_EDGES));
-  for (let c = 0; c < simplices.length; c += stride) {
-    const s = simplices[c];
-    for (let a = 0; a < s.length && edges.length < 2 * MESH_DRAW_EDGES; a++)
-      for (let b = a + 1; b < s.length; b++) {
-        const i = dense(s[a]);
-        const j = dense(s[b]);
-        const key = Math.min(i, j) * n + Math.max(i, j);
-        if (seen.has(key)) continue;
-        seen.add(key);
-        edges.push(i, j);
-      }
-  }
-  const xyz = new Map(vertices.map((v) => [v.id, v]));
-  const ca = Math.cos(0.6), sa = Math.sin(0.6), ct = Math.cos(0.52), st = Math.sin(0.52);
-  const points: [number, number][] = new Array(n);
-  let positioned = true;
-  for (const [id, i] of ids) {
-    const v = xyz.get(id);
-    if (!v || typeof v.x !== 'number' || typeof v.y !== 'number') {
-      positioned = false;
-      break;
-    }
-    const z = v.z ?? 0;
-    const rx = ca * v.x - sa * v.y;
-    const ry = sa * v.x + ca * v.y;
-    points[i] = [rx, ct * z + st * ry];
-  }
-  const vertexIds = new Int32Array(n);
-  for (const [id, i] of ids) vertexIds[i] = id;
-  const e = Int32Array.from(edges);
-  const positions = positioned ? Float32Array.from(fitUnit(points)) : spectralLayout(n, e);
-  return { positions, vertexIds, edges: e, drawStride: stride };
 }

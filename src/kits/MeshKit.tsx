@@ -10,7 +10,8 @@ import { FilePick } from './FilePick';
 import { Figure, KitReport } from './KitReport';
 import { KitStatus } from './KitStatus';
 import { meshCaution } from './meshCaution';
-import { MeshSketch } from './MeshSketch';
+import { cycleDrawStride, MeshSketch } from './MeshSketch';
+import { unpackMeshReport } from '../../shared/kits/mesh/packedCycles';
 import { useKitRun } from './useKitRun';
 
 
@@ -105,7 +106,7 @@ function MeshResultView({ result, file }: { result: MeshResult; file: { name: st
         ['time', `${r.ms.total} ms (cohomology ${r.ms.cohomology} ms, cycles ${r.ms.cycles} ms)`],
       ]}
       kitCaution={meshCaution(r.field)}
-      onJson={() => download(`${name}-mesh.json`, JSON.stringify(r), 'application/json')}
+      onJson={() => download(`${name}-mesh.json`, JSON.stringify(unpackMeshReport(r)), 'application/json')}
       onCsv={exportCsv}
       save={{
         kit: 'mesh',
@@ -142,7 +143,7 @@ function MeshResultView({ result, file }: { result: MeshResult; file: { name: st
             <select id="mesh-cycle" className="rounded border border-rule bg-sheet px-2 py-0.5" value={chosen} onChange={(e) => setChosen(Number(e.target.value))}>
               {r.cycles.map((c, i) => (
                 <option key={i} value={i}>
-                  {c.degree === 1 ? 'tunnel loop' : 'void surface'} {i + 1} ({c.cells.length} {c.degree === 1 ? 'edges' : 'triangles'})
+                  {c.degree === 1 ? 'tunnel loop' : 'void surface'} {i + 1} ({c.cellCount.toLocaleString('en')} {c.degree === 1 ? 'edges' : 'triangles'})
                 </option>
               ))}
             </select>
@@ -158,6 +159,7 @@ function MeshResultView({ result, file }: { result: MeshResult; file: { name: st
             </span>
           )}
           {cycle ? <> · <span className="text-odds">the highlighted cycle</span> represents one class of H{cycle.degree === 1 ? '₁' : '₂'}</> : ''}
+          {cycle && cycleDrawStride(cycle) > 1 ? <span data-testid="mesh-cycle-note"> (drawn by every {ordinal(cycleDrawStride(cycle))} of its {cycle.cellCount.toLocaleString('en')} cells)</span> : ''}
         </figcaption>
       </figure>
     </KitReport>

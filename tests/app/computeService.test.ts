@@ -4,6 +4,9 @@ import { createComputeService } from '../../src/compute/computeService';
 import { ENGINE_VERSION } from '../../shared/engine';
 import { createProject, listKitResults, listModels, listRuns, loadKitInput, loadKitResult, loadModelText, openDb } from '../../src/store';
 import { constantTorus } from '../../bench/torusModel';
+import { readFileSync } from 'node:fs';
+import { importAny } from '../../shared/import';
+import { analyseMesh, type MeshReport } from '../../shared/kits';
 
 let n = 0;
 const fresh = () => openDb(`compute-test-${n++}`);
@@ -103,5 +106,21 @@ describe('the compute service (what the engine worker runs)', () => {
     expect(await loadKitInput(db, saved.id, 0)).toBe(obj);
     expect(opened.report).toEqual({ betti: [1, 0, 0] });
     expect((await listKitResults(db, project.id)).map((r) => r.createdAt)).toEqual([saved.createdAt]);
+  });
+
+  test('a mesh report with packed cycles, as the page holds it, is saved with the cycles as lists of vertex ids', async () => {
+    const db = fresh();
+    const svc = createComputeService(db);
+    const project = await createProject(db, 'Culvert');
+    const text = readFileSync(new URL('../../shared/kits/demo/culvert-ring.obj', import.meta.url), 'utf8');
+    const out = await svc.meshTopology('culvert-ring.obj', text);
+    if (!out.ok) throw new Error(JSON.stringify(out.problems));
+    const saved = await svc.saveKitResult({ projectId: project.id, kit: 'mesh', name: 'ring', summary: 'ring', settings: { field: 'prime:2' }, inputs: [{ name: 'culvert-ring.obj', data: text }], report: out.result.report });
+    const opened = await loadKitResult(db, saved.id);
+    const imported = importAny('culvert-ring.obj', text);
+    if (!('model' in imported)) throw new Error('the demo mesh did not import');
+    const direct = analyseMesh(imported.model);
+    expect((opened.report as MeshReport).cycles).toEqual(direct.cycles);
+    expect((opened.report as MeshReport).cycles.map((c) => c.degree)).toEqual([1, 1, 2]);
   });
 });

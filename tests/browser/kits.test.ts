@@ -134,12 +134,20 @@ test('each kit goes from uploaded files to a drawn result and a JSON export; a b
   await screenshot(page, 'kits-mesh');
   const mesh = await exportedJson(page, /mesh\.json$/);
   expect(mesh.betti).toEqual([1, 2, 1]);
+  // The export has the cycles as the command line gives them: each cell a list of vertex ids.
+  const cycles = mesh.cycles as { degree: number; cells: number[][] }[];
+  expect(cycles.map((c) => c.degree)).toEqual([1, 1, 2]);
+  expect(cycles[0].cells[0]).toHaveLength(2);
 
-  // A torus of 217,800 triangles: computed in the worker with a progress note, cycles skipped with a message.
+  // A torus of 217,800 triangles: computed in the worker with a progress note, cycles included.
   await watchTestIds(page, ['mesh-progress']);
   await page.getByTestId('mesh-input').setInputFiles(tempFile('big-torus.obj', torusObj(330, 330)));
-  await expect.poll(() => page.getByTestId('mesh-cycles-skipped').textContent(), { timeout: 30_000 }).toContain('this mesh has 217,800');
-  expect(await page.getByTestId('mesh-betti').textContent()).toBe('(1, 2, 1)');
+  await expect.poll(() => page.getByTestId('mesh-betti').textContent(), { timeout: 30_000 }).toBe('(1, 2, 1)');
+  expect(await page.getByTestId('mesh-cycles-skipped').count()).toBe(0);
+  // The void's representative is the whole closed surface (Hatcher 2002, ch. 2: H_2 of the torus is its fundamental class).
+  expect(await page.locator('#mesh-cycle option').allTextContents()).toEqual(expect.arrayContaining([expect.stringMatching(/^void surface 3 \(217,800 triangles\)$/)]));
+  await page.locator('#mesh-cycle').selectOption({ index: 2 });
+  expect(await page.getByTestId('mesh-cycle-note').textContent()).toContain('drawn by every 11th of its 217,800 cells');
   expect((await seenTestIds(page))['mesh-progress']).toBe(true);
   // Not every edge is drawn at this size, and the picture says so.
   expect(await page.getByTestId('mesh-draw-note').textContent()).toMatch(/a sample: [\d,]+ of 326,700 edges drawn \(the edges of every 11th cell of the file\)/);

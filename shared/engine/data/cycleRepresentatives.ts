@@ -1,4 +1,4 @@
-import { cellOffsets, type BasedComplex } from '../based/BasedComplex';
+import { cellOffsets, cochainDims, type BasedComplex } from '../based/BasedComplex';
 import { fromSheaf } from '../based/fromSheaf';
 import type { Vec } from '../fields/Field';
 import type { Sheaf } from '../model/Sheaf';
@@ -6,6 +6,7 @@ import type { Control } from '../reduce/Cancelled';
 import { accumulate } from '../reduce/lift';
 import { morseReduce, type Reduction } from '../reduce/morseReduce';
 import { cohomologyBasis } from '../solve/cohomologyBasis';
+import { cohomologyDims } from '../solve/ranks';
 import { transposeComplex } from './transposeComplex';
 
 /**
@@ -25,6 +26,18 @@ export class HomologyCycles<E> {
     this.top = sheaf.complex.dimension;
     this.dual = transposeComplex(fromSheaf(sheaf));
     this.reduction = morseReduce(this.dual, { control });
+  }
+
+  /**
+   * dim H_k for k = 0 … top, from the same reduction (over a field these are
+   * the cohomology dimensions too, Hatcher 2002 §3.1), with the Euler
+   * characteristic checked as the engine's own run checks it.
+   */
+  dims(control?: Control): number[] {
+    const dual = cohomologyDims(this.reduction.output, control).dims;
+    const euler = (d: number[]) => d.reduce((sum, x, j) => sum + (j % 2 === 0 ? x : -x), 0);
+    if (euler(dual) !== euler(cochainDims(this.dual))) throw new Error('internal check failed: the Euler characteristic changed during the reduction');
+    return dual.slice().reverse();
   }
 
   /** k-cycles whose classes form a basis of H_k. Throws RangeError outside 0 … top. */

@@ -44,6 +44,15 @@ export function readModelText(text: string, options: ReadOptions = {}): ReadResu
   return readParsed(rest, split.simplices, options);
 }
 
+/**
+ * Validate a model file whose simplex list is given apart, already in typed
+ * arrays (an importer that read a mesh straight into them); `json.simplices`
+ * is ignored. Same checks and messages as {@link readModel}.
+ */
+export function readModelWithSimplices(json: unknown, simplices: ScannedSimplices, options: ReadOptions = {}): ReadResult {
+  return readParsed(json, simplices, options);
+}
+
 /** As {@link readModelText}, throwing a {@link ModelError} on the first problem. */
 export function readModelTextOrThrow(text: string, options: ReadOptions = {}): Sheaf<unknown> {
   const r = readModelText(text, options);

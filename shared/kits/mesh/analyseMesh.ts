@@ -1,9 +1,12 @@
-import { simplexIds } from '../../engine/complex/SimplicialComplex';
 import { computeCohomology } from '../../engine/computeCohomology';
 import { HomologyCycles } from '../../engine/data/cycleRepresentatives';
 import type { FieldSpec } from '../../engine/fields/FieldSpec';
 import type { ModelFile } from '../../engine/model/ModelFile';
 import { readModelOrThrow } from '../../engine/model/readModel';
+import type { Sheaf } from '../../engine/model/Sheaf';
+import type { MeshData } from '../../import/MeshData';
+import { meshSheaf } from './meshSheaf';
+import { unpackMeshReport, type PackedCycle, type PackedMeshReport } from './packedCycles';
 import { denseIndexer } from '../../engine/model/readSimplices';
 import type { Control } from '../../engine/reduce/Cancelled';
 import { surfaceChecks, windingConsistent } from './surfaceChecks';
@@ -61,42 +64,74 @@ export function analyseMesh(model: ModelFile, options: MeshOptions = {}): MeshRe
   const t0 = performance.now();
   const field = options.field ?? { kind: 'prime', p: 2 };
   const sheaf = readModelOrThrow(model, { field });
+  const dense = denseIndexer(sheaf.complex.vertexIds);
+  let n = 0;
+  for (const s of model.simplices) if (s.length === 3) n++;
+  const listed = new Int32Array(3 * n);
+  let w = 0;
+  for (const s of model.simplices) if (s.length === 3) for (let i = 0; i < 3; i++) listed[w++] = dense(s[i]);
+  return unpackMeshReport(analyseSheaf(sheaf, listed, field, options, t0));
+}
+
+/**
+ * {@link analyseMesh} on a mesh read into typed arrays (`readObj`,
+ * `readOff`): the same report, without building a model file first.
+ */
+export function analyseMeshData(mesh: MeshData, options: MeshOptions = {}): MeshReport {
+  return unpackMeshReport(analyseMeshDataPacked(mesh, options));
+}
+
+/** {@link analyseMeshData} with the cycles packed into typed arrays, to send across threads. */
+export function analyseMeshDataPacked(mesh: MeshData, options: MeshOptions = {}): PackedMeshReport {
+  const t0 = performance.now();
+  const field = options.field ?? { kind: 'prime', p: 2 };
+  // Every vertex is a cell (unused ones as points), so dense indices are the file's own.
+  return analyseSheaf(meshSheaf(mesh, field), mesh.triangles, field, options, t0);
+}
+
+/** `listed`: the file's triangles as dense vertex indices in its corner order, for the winding check. */
+function analyseSheaf(sheaf: Sheaf<unknown>, listed: Int32Array, field: FieldSpec, options: MeshOptions, t0: number): PackedMeshReport {
   const cx = sheaf.complex;
-  const run = computeCohomology(sheaf, { control: options.control });
+  const withCycles = options.cycles !== false;
+  // With cycles, one reduction (of the dual) gives both the Betti numbers and the
+  // representatives; reducing the complex itself as well would double the work.
+  const homology = withCycles ? new HomologyCycles(sheaf, options.control) : undefined;
+  const dims = homology ? homology.dims(options.control) : computeCohomology(sheaf, { control: options.control }).report.dims;
   const t1 = performance.now();
-  const dims = run.report.dims;
   const betti = [0, 1, 2].map((k) => dims[k] ?? 0);
   for (let k = 3; k < dims.length; k++) betti.push(dims[k]);
   const checks = surfaceChecks(cx);
   let winding: boolean | null = null;
-  if (cx.dimension === 2 && checks.nonManifoldEdges === 0) {
-    const dense = denseIndexer(cx.vertexIds);
-    const listed: number[] = [];
-    for (const s of model.simplices) if (s.length === 3) listed.push(dense(s[0]), dense(s[1]), dense(s[2]));
-    winding = windingConsistent(cx, listed);
-  }
-  const cycles: ClassCycle[] = [];
-  if (options.cycles !== false) {
+  if (cx.dimension === 2 && checks.nonManifoldEdges === 0) winding = windingConsistent(cx, listed);
+  const cycles: PackedCycle[] = [];
+  if (homology) {
     const F = sheaf.field;
-    const homology = dims.slice(1).some((d) => d > 0) ? new HomologyCycles(sheaf, options.control) : undefined;
+    const gf2 = field.kind === 'prime' && field.p === 2;
     for (let k = 1; k <= cx.dimension; k++) {
-      if (!dims[k] || !homology) continue;
+      if (!dims[k]) continue;
       const reps = homology.cycles(k);
-      if (reps.length !== dims[k]) throw new Error(`internal check failed: ${reps.length} cycles in degree ${k}, but dim H^${k} = ${dims[k]}`);
+      if (reps.length !== dims[k]) throw new Error(`internal check failed: ${reps.length} cycles in degree ${k}, but dim H_${k} = ${dims[k]}`);
+      const table = cx.simplices[k];
+      const ids = cx.vertexIds;
       for (const z of reps) {
-        const cells: number[][] = [];
+        let cellCount = 0;
+        for (let c = 0; c < z.length; c++) if (!F.isZero(z[c])) cellCount++;
+        const vertices = new Int32Array(cellCount * (k + 1));
         const coefficients: (number | string)[] = [];
+        let w = 0;
         for (let c = 0; c < z.length; c++) {
           if (F.isZero(z[c])) continue;
-          cells.push(simplexIds(cx, k, c));
-          coefficients.push(F.toJSON(z[c]));
+          for (let i = 0; i <= k; i++) vertices[w++] = ids[table.vertex(c, i)];
+          if (!gf2) coefficients.push(F.toJSON(z[c]));
         }
-        cycles.push(field.kind === 'prime' && field.p === 2 ? { degree: k, cells } : { degree: k, cells, coefficients });
+        cycles.push(gf2 ? { degree: k, cellCount, vertices } : { degree: k, cellCount, vertices, coefficients });
       }
     }
   }
   const t2 = performance.now();
   const round = (ms: number) => Math.round(ms * 10) / 10;
+  let euler = 0;
+  for (let k = 0; k <= cx.dimension; k++) euler += (k % 2 === 0 ? 1 : -1) * cx.simplices[k].size;
   return {
     field: sheaf.field.label,
     vertices: cx.simplices[0]?.size ?? 0,
@@ -104,7 +139,7 @@ export function analyseMesh(model: ModelFile, options: MeshOptions = {}): MeshRe
     triangles: cx.simplices[2]?.size ?? 0,
     components: betti[0],
     betti,
-    euler: run.report.euler,
+    euler,
     closed: checks.closed,
     orientable: checks.orientable,
     windingConsistent: winding,

@@ -76,9 +76,11 @@ function pinchedVertices(cx: SimplicialComplex): number {
     return x;
   };
   let pinched = 0;
-  const touched: number[] = [];
+  const verts = tri.vertices;
+  const touched = new Int32Array(nV);
+  let nTouched = 0;
   for (let v = 0; v < nV; v++) {
-    touched.length = 0;
+    nTouched = 0;
     let pieces = 0;
     for (let p = edgePtr[v]; p < edgePtr[v + 1]; p++) {
       const e = Math.floor(edgeEntry[p] / 2);
@@ -86,17 +88,22 @@ function pinchedVertices(cx: SimplicialComplex): number {
         const t = Math.floor(triEntry[q] / 3);
         if (seen[t] === v) continue;
         seen[t] = v;
-        const ends: number[] = [];
-        for (let i = 0; i < 3; i++) if (tri.vertex(t, i) !== v) ends.push(tri.vertex(t, i));
-        for (const u of ends) {
-          if (parent[u] < 0) {
-            parent[u] = u;
-            touched.push(u);
-            pieces++;
-          }
+        // The link edge: the two corners other than v.
+        const t0 = verts[3 * t];
+        const x = t0 === v ? verts[3 * t + 1] : t0;
+        const y = verts[3 * t + 2] === v ? verts[3 * t + 1] : verts[3 * t + 2];
+        if (parent[x] < 0) {
+          parent[x] = x;
+          touched[nTouched++] = x;
+          pieces++;
         }
-        const a = find(ends[0]);
-        const b = find(ends[1]);
+        if (parent[y] < 0) {
+          parent[y] = y;
+          touched[nTouched++] = y;
+          pieces++;
+        }
+        const a = find(x);
+        const b = find(y);
         if (a !== b) {
           parent[a] = b;
           pieces--;
@@ -104,7 +111,7 @@ function pinchedVertices(cx: SimplicialComplex): number {
       }
     }
     if (pieces > 1) pinched++;
-    for (const u of touched) parent[u] = -1;
+    for (let i = 0; i < nTouched; i++) parent[touched[i]] = -1;
   }
   return pinched;
 }
@@ -158,6 +165,27 @@ export function orientTriangles(cx: SimplicialComplex): Int8Array | null {
 export function windingConsistent(cx: SimplicialComplex, triangles: ArrayLike<number>): boolean {
   // Bit 1: edge run from its lower to its higher vertex; bit 2: the other way.
   const runs = new Uint8Array(cx.simplices[1]?.size ?? 0);
+  const tri = cx.simplices[2];
+  if (tri && tri.size * 3 === triangles.length) {
+    // No repeated triangles: the complex keeps the file's order, so triangle t
+    // is listed triangle t and its edges are read from the incidences, not looked up.
+    const verts = tri.vertices;
+    const faces = cx.faces[2];
+    for (let t = 0; t < tri.size; t++) {
+      const o = 3 * t;
+      for (let i = 0; i < 3; i++) {
+        const a = triangles[o + i];
+        const b = triangles[o + ((i + 1) % 3)];
+        const c = triangles[o + ((i + 2) % 3)];
+        // The edge (a, b) is the face opposite c.
+        const e = faces[o + (verts[o] === c ? 0 : verts[o + 1] === c ? 1 : 2)];
+        const bit = a < b ? 1 : 2;
+        if (runs[e] & bit) return false;
+        runs[e] |= bit;
+      }
+    }
+    return true;
+  }
   const pair = new Int32Array(2);
   for (let t = 0; t + 2 < triangles.length; t += 3) {
     for (let i = 0; i < 3; i++) {
