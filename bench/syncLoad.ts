@@ -72,7 +72,8 @@ async function main() {
     report(elapsed, lost, duplicated);
   } finally {
     child.removeAllListeners('exit');
-    const exited = new Promise((r) => child.once('exit', r));
+    // 'exit' can come before the last of the child's stdout (its STATS line) has been read; 'close' comes after.
+    const exited = new Promise((r) => child.once('close', r));
     child.kill('SIGTERM');
     await exited;
     rmSync(dir, { recursive: true, force: true });

@@ -28,7 +28,8 @@ setInterval(() => {
 }, 50).unref();
 http.listen(0, '127.0.0.1', () => console.log(`PORT ${(http.address() as AddressInfo).port}`));
 process.once('SIGTERM', async () => {
-  console.log(`STATS ${JSON.stringify({ handling, stallMs: stall })}`);
+  // Exit only once the line is written: at a few thousand requests it is larger than the pipe's buffer, and process.exit would cut it.
+  await new Promise((written) => process.stdout.write(`STATS ${JSON.stringify({ handling, stallMs: stall })}\n`, written));
   http.close();
   await server.close();
   process.exit(0);
