@@ -9,38 +9,49 @@ import type { Transactor } from '../db/Transactor';
 import { badRequest } from '../http/HttpError';
 import { iso, type Clock } from './clock';
 import { contentHash } from './contentHash';
-import { recordAudit, type AuditAction } from './recordAudit';
+import { recordAudits, type AuditAction, type AuditInput } from './recordAudit';
 import { docView } from './views';
 
 type Outcome = { accepted: AcceptedChange } | { conflict: ConflictedChange };
 
+/** What a change will write, worked out before the transaction so none of it is done while the project is locked. */
+interface Prepared {
+  change: ChangeInput;
+  hash: string;
+  content: Pick<DocumentRow, 'body' | 'uploadId' | 'deleted'>;
+}
+
 /**
- * Push and pull of a project's documents. Each pushed change is decided by
- * `decideChange` (shared/sync) and applied in its own transaction together
- * with its change record, its audit entry and the project revision bump,
- * so a crash leaves either all of it or none. A changeId already recorded
- * answers its recorded outcome and applies nothing.
+ * Push and pull of a project's documents. A push is one transaction: it
+ * locks the project row, reads the heads of every document and every
+ * changeId it names in one query each, decides each change in order with
+ * `decideChange` (shared/sync) against the heads as the earlier changes of
+ * the same push left them, and writes the documents, change records, audit
+ * entries and the project revision together, so a crash leaves all of it
+ * or none. A changeId already recorded answers its recorded outcome and
+ * applies nothing.
  */
 export class SyncService {
   constructor(private readonly tx: Transactor, private readonly clock: Clock) {}
 
   async push(user: UserRow, projectId: string, changes: ChangeInput[]): Promise<PushResponse> {
     await this.checkUploads(projectId, changes);
-    const accepted: AcceptedChange[] = [];
-    const conflicts: ConflictedChange[] = [];
-    for (const change of changes) {
-      const outcome = await this.tx.write((repos) => this.applyOne(repos, user, projectId, change));
-      if ('accepted' in outcome) accepted.push(outcome.accepted);
-      else conflicts.push(outcome.conflict);
-    }
-    const revision = await this.tx.read(async (repos) => (await repos.projects.findOneByOrFail({ id: projectId })).revision);
-    return { revision, accepted, conflicts };
+    const prepared: Prepared[] = changes.map((change) => ({
+      change,
+      hash: contentHash(change),
+      content: change.deleted
+        ? { body: null, uploadId: null, deleted: true }
+        : { body: change.body === undefined ? null : JSON.stringify(change.body), uploadId: change.uploadId ?? null, deleted: false },
+    }));
+    return this.tx.write((repos) => this.apply(repos, user, projectId, prepared));
   }
 
   /**
    * Documents changed after `since`, oldest change first, at most `limit`.
    * Each accepted change gives its document a revision of its own, so a
-   * page ends cleanly at the last document's revision.
+   * page ends cleanly at the last document's revision. Takes no lock: a
+   * push commits its documents and the project revision together, so every
+   * document at or below the revision read first is already visible.
    */
   pull(projectId: string, since: number, limit: number): Promise<PullResponse> {
     return this.tx.read(async (repos) => {
@@ -58,50 +69,85 @@ export class SyncService {
     });
   }
 
-  private async applyOne(repos: Repos, user: UserRow, projectId: string, change: ChangeInput): Promise<Outcome> {
-    // Taking the project row first serialises pushes to one project across server instances (a row lock on PostgreSQL).
+  private async apply(repos: Repos, user: UserRow, projectId: string, prepared: Prepared[]): Promise<PushResponse> {
+    // The lock comes first, so pushes to one project are serialised across server instances (a row lock on
+    // PostgreSQL) and every read below sees what the push before this one committed.
     await repos.projects.update({ id: projectId }, { revision: () => 'revision' });
-    const prior = await repos.changes.findOneBy({ projectId, changeId: change.changeId });
-    if (prior) return this.replay(repos, prior);
-    const doc = await repos.documents.findOneBy({ projectId, docId: change.docId });
-    const hash = contentHash(change);
-    const decision = decideChange(doc, change, doc?.contentHash === hash);
-    const now = iso(this.clock());
-    const record: ChangeRow = {
-      id: randomUUID(), projectId, changeId: change.changeId, docId: change.docId, kind: change.kind, baseVersion: change.baseVersion,
-      outcome: 'accepted', reason: null, version: null, revision: null, userId: user.id, createdAt: now,
-    };
-    if (decision.type === 'conflict') {
-      await insertRow(repos.changes, { ...record, outcome: 'conflict', reason: decision.reason });
-      await recordAudit(repos, now, { projectId, actorId: user.id, action: 'change.conflict', target: change.docId, detail: { kind: change.kind, reason: decision.reason, baseVersion: change.baseVersion, serverVersion: doc?.version ?? null } });
-      return { conflict: { changeId: change.changeId, docId: change.docId, reason: decision.reason, server: doc ? docView(doc) : null } };
-    }
-    if (decision.type === 'same') {
-      await insertRow(repos.changes, { ...record, version: doc!.version, revision: doc!.revision });
-      return { accepted: { changeId: change.changeId, docId: change.docId, version: doc!.version, revision: doc!.revision } };
-    }
-    await repos.projects.update({ id: projectId }, { revision: () => 'revision + 1', updatedAt: now });
-    const { revision } = await repos.projects.findOneByOrFail({ id: projectId });
-    const content = change.deleted
-      ? { body: null, uploadId: null, deleted: true }
-      : { body: change.body === undefined ? null : JSON.stringify(change.body), uploadId: change.uploadId ?? null, deleted: false };
-    const next: DocumentRow = {
-      id: doc?.id ?? randomUUID(), projectId, docId: change.docId, kind: change.kind, version: decision.version, revision, ...content,
-      contentHash: hash, createdBy: doc?.createdBy ?? user.id, updatedBy: user.id, createdAt: doc?.createdAt ?? now, updatedAt: now,
-    };
-    if (doc) await repos.documents.update({ id: doc.id }, next);
-    else await insertRow(repos.documents, next);
-    await insertRow(repos.changes, { ...record, version: decision.version, revision });
-    await recordAudit(repos, now, { projectId, actorId: user.id, action: auditAction(change, doc), target: change.docId, detail: { kind: change.kind, version: decision.version } });
-    return { accepted: { changeId: change.changeId, docId: change.docId, version: decision.version, revision } };
-  }
+    let { revision } = await repos.projects.findOneOrFail({ select: { revision: true }, where: { id: projectId } });
+    const startRevision = revision;
+    const changeIds = [...new Set(prepared.map((p) => p.change.changeId))];
+    const docIds = [...new Set(prepared.map((p) => p.change.docId))];
+    const priors = new Map((await repos.changes.findBy({ projectId, changeId: In(changeIds) })).map((c) => [c.changeId, c]));
+    const heads = new Map((await repos.documents.findBy({ projectId, docId: In(docIds) })).map((d) => [d.docId, d]));
 
-  private async replay(repos: Repos, prior: ChangeRow): Promise<Outcome> {
-    if (prior.outcome === 'accepted') {
-      return { accepted: { changeId: prior.changeId, docId: prior.docId, version: prior.version!, revision: prior.revision! } };
+    const now = iso(this.clock());
+    const written = new Map<string, DocumentRow>();
+    const records: ChangeRow[] = [];
+    const audits: AuditInput[] = [];
+    const accepted: AcceptedChange[] = [];
+    const conflicts: ConflictedChange[] = [];
+    const outcomes = new Map<string, Outcome>();
+    const answer = (outcome: Outcome) => {
+      if ('accepted' in outcome) accepted.push(outcome.accepted);
+      else conflicts.push(outcome.conflict);
+    };
+
+    for (const { change, hash, content } of prepared) {
+      // A changeId recorded before, or earlier in this very push, answers as it did then.
+      const prior = priors.get(change.changeId);
+      if (prior) {
+        answer(replay(prior, heads.get(prior.docId) ?? null));
+        continue;
+      }
+      const earlier = outcomes.get(change.changeId);
+      if (earlier) {
+        answer(earlier);
+        continue;
+      }
+      const doc = heads.get(change.docId) ?? null;
+      const decision = decideChange(doc, change, doc?.contentHash === hash);
+      const record: ChangeRow = {
+        id: randomUUID(), projectId, changeId: change.changeId, docId: change.docId, kind: change.kind, baseVersion: change.baseVersion,
+        outcome: 'accepted', reason: null, version: null, revision: null, userId: user.id, createdAt: now,
+      };
+      let outcome: Outcome;
+      if (decision.type === 'conflict') {
+        records.push({ ...record, outcome: 'conflict', reason: decision.reason });
+        audits.push({ projectId, actorId: user.id, action: 'change.conflict', target: change.docId, detail: { kind: change.kind, reason: decision.reason, baseVersion: change.baseVersion, serverVersion: doc?.version ?? null } });
+        outcome = { conflict: { changeId: change.changeId, docId: change.docId, reason: decision.reason, server: doc ? docView(doc) : null } };
+      } else if (decision.type === 'same') {
+        records.push({ ...record, version: doc!.version, revision: doc!.revision });
+        outcome = { accepted: { changeId: change.changeId, docId: change.docId, version: doc!.version, revision: doc!.revision } };
+      } else {
+        revision += 1;
+        const next: DocumentRow = {
+          id: doc?.id ?? randomUUID(), projectId, docId: change.docId, kind: change.kind, version: decision.version, revision, ...content,
+          contentHash: hash, createdBy: doc?.createdBy ?? user.id, updatedBy: user.id, createdAt: doc?.createdAt ?? now, updatedAt: now,
+        };
+        heads.set(change.docId, next);
+        written.set(change.docId, next);
+        records.push({ ...record, version: decision.version, revision });
+        audits.push({ projectId, actorId: user.id, action: auditAction(change, doc), target: change.docId, detail: { kind: change.kind, version: decision.version } });
+        outcome = { accepted: { changeId: change.changeId, docId: change.docId, version: decision.version, revision } };
+      }
+      outcomes.set(change.changeId, outcome);
+      answer(outcome);
     }
-    const doc = await repos.documents.findOneBy({ projectId: prior.projectId, docId: prior.docId });
-    return { conflict: { changeId: prior.changeId, docId: prior.docId, reason: prior.reason!, server: doc ? docView(doc) : null } };
+
+    // One statement per table, whatever the size of the push: each round trip is time the project stays locked.
+    if (written.size) {
+      await repos.documents
+        .createQueryBuilder()
+        .insert()
+        .values([...written.values()])
+        .orUpdate(['kind', 'version', 'revision', 'body', 'uploadId', 'deleted', 'contentHash', 'updatedBy', 'updatedAt'], ['projectId', 'docId'])
+        .updateEntity(false)
+        .execute();
+    }
+    if (records.length) await insertRow(repos.changes, records);
+    if (audits.length) await recordAudits(repos, now, audits);
+    if (revision !== startRevision) await repos.projects.update({ id: projectId }, { revision, updatedAt: now });
+    return { revision, accepted, conflicts };
   }
 
   /** Every upload a push names must exist in the project, checked before anything is applied. */
@@ -112,6 +158,13 @@ export class SyncService {
     const missing = ids.filter((id) => !found.some((u) => u.id === id));
     if (missing.length) throw badRequest(`no upload ${missing[0]} in this project`);
   }
+}
+
+function replay(prior: ChangeRow, doc: DocumentRow | null): Outcome {
+  if (prior.outcome === 'accepted') {
+    return { accepted: { changeId: prior.changeId, docId: prior.docId, version: prior.version!, revision: prior.revision! } };
+  }
+  return { conflict: { changeId: prior.changeId, docId: prior.docId, reason: prior.reason!, server: doc ? docView(doc) : null } };
 }
 
 function auditAction(change: ChangeInput, before: DocumentRow | null): AuditAction {

@@ -28,3 +28,15 @@ export async function recordAudit(repos: Repos, at: string, entry: AuditInput): 
     at,
   });
 }
+
+/** Append several entries inside the caller's transaction with one statement, listed in the order given. */
+export async function recordAudits(repos: Repos, at: string, entries: AuditInput[]): Promise<void> {
+  await insertRow(repos.audit, entries.map((entry) => ({
+    projectId: entry.projectId,
+    actorId: entry.actorId,
+    action: entry.action,
+    target: entry.target ?? null,
+    detail: entry.detail === undefined ? null : JSON.stringify(entry.detail),
+    at,
+  })));
+}
