@@ -5,7 +5,8 @@ export interface ServerConfig {
   port: number;
   /** Where to serve the built client from; none for an API-only server. */
   distDir?: string;
-  db: { kind: 'sqlite'; file: string } | { kind: 'postgres'; url: string };
+  /** On PostgreSQL, `poolSize` connections at most per instance (`DATABASE_POOL_SIZE`, default 10 as in node-postgres). */
+  db: { kind: 'sqlite'; file: string } | { kind: 'postgres'; url: string; poolSize: number };
   /** Create the demo accounts and project on first start. */
   seedDemo: boolean;
   /** The app's public origin: the one CORS origin, and the base of links in e-mails. */
@@ -48,7 +49,7 @@ export function loadConfig(env: Env = process.env, cwd: string = process.cwd()):
   return {
     port,
     db: databaseUrl
-      ? { kind: 'postgres', url: databaseUrl }
+      ? { kind: 'postgres', url: databaseUrl, poolSize: positive(env, 'DATABASE_POOL_SIZE', 10) }
       : { kind: 'sqlite', file: resolve(cwd, env.GLUEFIELD_DB ?? './data/gluefield.sqlite') },
     seedDemo: env.GLUEFIELD_SEED_DEMO !== '0',
     appOrigin: (env.APP_ORIGIN ?? `http://localhost:${port}`).replace(/\/+$/, ''),
@@ -81,5 +82,11 @@ function int(env: Env, name: string, fallback: number): number {
   if (raw === undefined || raw === '') return fallback;
   const value = Number(raw);
   if (!Number.isSafeInteger(value) || value < 0) throw new Error(`${name} must be a non-negative integer, not ${JSON.stringify(raw)}`);
+  return value;
+}
+
+function positive(env: Env, name: string, fallback: number): number {
+  const value = int(env, name, fallback);
+  if (value === 0) throw new Error(`${name} must be at least 1`);
   return value;
 }

@@ -21,7 +21,8 @@ export async function createDataSource(db: ServerConfig['db']): Promise<DataSour
   const common = { entities, migrations, migrationsRun: true, synchronize: false, logging: false } as const;
   let options: DataSourceOptions;
   if (db.kind === 'postgres') {
-    options = { type: 'postgres', url: db.url, ...common };
+    // Several instances share the database's max_connections (100 by default), so the pool is a setting.
+    options = { type: 'postgres', url: db.url, poolSize: db.poolSize, ...common };
   } else {
     mkdirSync(dirname(db.file), { recursive: true });
     options = {

@@ -25,7 +25,8 @@ describe('configuration', () => {
   it('follows the environment: port, database URL, a real relay', () => {
     const config = loadConfig({ PORT: '9000', DATABASE_URL: 'postgres://u:p@db/gluefield', SMTP_HOST: 'smtp.example.org', SMTP_PORT: '587', APP_ORIGIN: 'https://field.example.org/' });
     expect(config.port).toBe(9000);
-    expect(config.db).toEqual({ kind: 'postgres', url: 'postgres://u:p@db/gluefield' });
+    expect(config.db).toEqual({ kind: 'postgres', url: 'postgres://u:p@db/gluefield', poolSize: 10 });
+    expect(loadConfig({ DATABASE_URL: 'postgres://u:p@db/gluefield', DATABASE_POOL_SIZE: '24' }).db).toMatchObject({ poolSize: 24 });
     expect(config.smtpSink).toBe(false);
     expect(config.appOrigin).toBe('https://field.example.org');
   });
@@ -33,6 +34,7 @@ describe('configuration', () => {
   it('refuses to run in production with the development secret', () => {
     expect(() => loadConfig({ NODE_ENV: 'production' })).toThrow(/JWT_SECRET/);
     expect(() => loadConfig({ PORT: 'eighty' })).toThrow(/PORT/);
+    expect(() => loadConfig({ DATABASE_URL: 'postgres://u:p@db/gluefield', DATABASE_POOL_SIZE: '0' })).toThrow(/DATABASE_POOL_SIZE/);
   });
 });
 
