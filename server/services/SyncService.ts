@@ -10,6 +10,7 @@ import { badRequest } from '../http/HttpError';
 import { iso, type Clock } from './clock';
 import { contentHash } from './contentHash';
 import { recordAudits, type AuditAction, type AuditInput } from './recordAudit';
+import { KeyedBatcher } from './KeyedBatcher';
 import { docView } from './views';
 
 type Outcome = { accepted: AcceptedChange } | { conflict: ConflictedChange };
@@ -21,17 +22,33 @@ interface Prepared {
   content: Pick<DocumentRow, 'body' | 'uploadId' | 'deleted'>;
 }
 
+interface Push {
+  user: UserRow;
+  prepared: Prepared[];
+}
+
+/** Changes in one transaction at most, whatever waits: the batched inserts stay well inside both databases' limits on bind parameters. */
+const MAX_CHANGES_PER_TRANSACTION = 1000;
+
 /**
- * Push and pull of a project's documents. A push is one transaction: it
- * locks the project row, reads the heads of every document and every
- * changeId it names in one query each, decides each change in order with
- * `decideChange` (shared/sync) against the heads as the earlier changes of
- * the same push left them, and writes the documents, change records, audit
- * entries and the project revision together, so a crash leaves all of it
- * or none. A changeId already recorded answers its recorded outcome and
- * applies nothing.
+ * Push and pull of a project's documents. Pushes to one project take turns
+ * in this instance (`KeyedBatcher`), and the pushes waiting for a turn go
+ * together in one transaction, applied one after the other as if each had
+ * its own. The transaction locks the project row, reads the heads of every
+ * document and every changeId named in one query each, decides each change
+ * in order with `decideChange` (shared/sync) against the heads as the
+ * earlier changes left them, and writes the documents, change records,
+ * audit entries and the project revision together, so a crash leaves all
+ * of it or none. A changeId already recorded answers its recorded outcome
+ * and applies nothing.
  */
 export class SyncService {
+  private readonly pushes = new KeyedBatcher<string, Push, PushResponse>(
+    (projectId, pushes) => this.tx.write((repos) => this.apply(repos, projectId, pushes)),
+    (push) => push.prepared.length,
+    MAX_CHANGES_PER_TRANSACTION,
+  );
+
   constructor(private readonly tx: Transactor, private readonly clock: Clock) {}
 
   async push(user: UserRow, projectId: string, changes: ChangeInput[]): Promise<PushResponse> {
@@ -43,7 +60,7 @@ export class SyncService {
         ? { body: null, uploadId: null, deleted: true }
         : { body: change.body === undefined ? null : JSON.stringify(change.body), uploadId: change.uploadId ?? null, deleted: false },
     }));
-    return this.tx.write((repos) => this.apply(repos, user, projectId, prepared));
+    return this.pushes.run(projectId, { user, prepared });
   }
 
   /**
@@ -69,14 +86,15 @@ export class SyncService {
     });
   }
 
-  private async apply(repos: Repos, user: UserRow, projectId: string, prepared: Prepared[]): Promise<PushResponse> {
+  private async apply(repos: Repos, projectId: string, pushes: Push[]): Promise<PushResponse[]> {
     // The lock comes first, so pushes to one project are serialised across server instances (a row lock on
     // PostgreSQL) and every read below sees what the push before this one committed.
     await repos.projects.update({ id: projectId }, { revision: () => 'revision' });
     let { revision } = await repos.projects.findOneOrFail({ select: { revision: true }, where: { id: projectId } });
     const startRevision = revision;
-    const changeIds = [...new Set(prepared.map((p) => p.change.changeId))];
-    const docIds = [...new Set(prepared.map((p) => p.change.docId))];
+    const all = pushes.flatMap((push) => push.prepared);
+    const changeIds = [...new Set(all.map((p) => p.change.changeId))];
+    const docIds = [...new Set(all.map((p) => p.change.docId))];
     const priors = new Map((await repos.changes.findBy({ projectId, changeId: In(changeIds) })).map((c) => [c.changeId, c]));
     const heads = new Map((await repos.documents.findBy({ projectId, docId: In(docIds) })).map((d) => [d.docId, d]));
 
@@ -84,57 +102,62 @@ export class SyncService {
     const written = new Map<string, DocumentRow>();
     const records: ChangeRow[] = [];
     const audits: AuditInput[] = [];
-    const accepted: AcceptedChange[] = [];
-    const conflicts: ConflictedChange[] = [];
     const outcomes = new Map<string, Outcome>();
-    const answer = (outcome: Outcome) => {
-      if ('accepted' in outcome) accepted.push(outcome.accepted);
-      else conflicts.push(outcome.conflict);
-    };
+    const answers: PushResponse[] = [];
 
-    for (const { change, hash, content } of prepared) {
-      // A changeId recorded before, or earlier in this very push, answers as it did then.
-      const prior = priors.get(change.changeId);
-      if (prior) {
-        answer(replay(prior, heads.get(prior.docId) ?? null));
-        continue;
-      }
-      const earlier = outcomes.get(change.changeId);
-      if (earlier) {
-        answer(earlier);
-        continue;
-      }
-      const doc = heads.get(change.docId) ?? null;
-      const decision = decideChange(doc, change, doc?.contentHash === hash);
-      const record: ChangeRow = {
-        id: randomUUID(), projectId, changeId: change.changeId, docId: change.docId, kind: change.kind, baseVersion: change.baseVersion,
-        outcome: 'accepted', reason: null, version: null, revision: null, userId: user.id, createdAt: now,
+    for (const { user, prepared } of pushes) {
+      const accepted: AcceptedChange[] = [];
+      const conflicts: ConflictedChange[] = [];
+      const answer = (outcome: Outcome) => {
+        if ('accepted' in outcome) accepted.push(outcome.accepted);
+        else conflicts.push(outcome.conflict);
       };
-      let outcome: Outcome;
-      if (decision.type === 'conflict') {
-        records.push({ ...record, outcome: 'conflict', reason: decision.reason });
-        audits.push({ projectId, actorId: user.id, action: 'change.conflict', target: change.docId, detail: { kind: change.kind, reason: decision.reason, baseVersion: change.baseVersion, serverVersion: doc?.version ?? null } });
-        outcome = { conflict: { changeId: change.changeId, docId: change.docId, reason: decision.reason, server: doc ? docView(doc) : null } };
-      } else if (decision.type === 'same') {
-        records.push({ ...record, version: doc!.version, revision: doc!.revision });
-        outcome = { accepted: { changeId: change.changeId, docId: change.docId, version: doc!.version, revision: doc!.revision } };
-      } else {
-        revision += 1;
-        const next: DocumentRow = {
-          id: doc?.id ?? randomUUID(), projectId, docId: change.docId, kind: change.kind, version: decision.version, revision, ...content,
-          contentHash: hash, createdBy: doc?.createdBy ?? user.id, updatedBy: user.id, createdAt: doc?.createdAt ?? now, updatedAt: now,
+      for (const { change, hash, content } of prepared) {
+        // A changeId recorded before, or earlier in this transaction, answers as it did then.
+        const prior = priors.get(change.changeId);
+        if (prior) {
+          answer(replay(prior, heads.get(prior.docId) ?? null));
+          continue;
+        }
+        const earlier = outcomes.get(change.changeId);
+        if (earlier) {
+          const head = 'conflict' in earlier ? heads.get(earlier.conflict.docId) : undefined;
+          answer('accepted' in earlier ? earlier : { conflict: { ...earlier.conflict, server: head ? docView(head) : null } });
+          continue;
+        }
+        const doc = heads.get(change.docId) ?? null;
+        const decision = decideChange(doc, change, doc?.contentHash === hash);
+        const record: ChangeRow = {
+          id: randomUUID(), projectId, changeId: change.changeId, docId: change.docId, kind: change.kind, baseVersion: change.baseVersion,
+          outcome: 'accepted', reason: null, version: null, revision: null, userId: user.id, createdAt: now,
         };
-        heads.set(change.docId, next);
-        written.set(change.docId, next);
-        records.push({ ...record, version: decision.version, revision });
-        audits.push({ projectId, actorId: user.id, action: auditAction(change, doc), target: change.docId, detail: { kind: change.kind, version: decision.version } });
-        outcome = { accepted: { changeId: change.changeId, docId: change.docId, version: decision.version, revision } };
+        let outcome: Outcome;
+        if (decision.type === 'conflict') {
+          records.push({ ...record, outcome: 'conflict', reason: decision.reason });
+          audits.push({ projectId, actorId: user.id, action: 'change.conflict', target: change.docId, detail: { kind: change.kind, reason: decision.reason, baseVersion: change.baseVersion, serverVersion: doc?.version ?? null } });
+          outcome = { conflict: { changeId: change.changeId, docId: change.docId, reason: decision.reason, server: doc ? docView(doc) : null } };
+        } else if (decision.type === 'same') {
+          records.push({ ...record, version: doc!.version, revision: doc!.revision });
+          outcome = { accepted: { changeId: change.changeId, docId: change.docId, version: doc!.version, revision: doc!.revision } };
+        } else {
+          revision += 1;
+          const next: DocumentRow = {
+            id: doc?.id ?? randomUUID(), projectId, docId: change.docId, kind: change.kind, version: decision.version, revision, ...content,
+            contentHash: hash, createdBy: doc?.createdBy ?? user.id, updatedBy: user.id, createdAt: doc?.createdAt ?? now, updatedAt: now,
+          };
+          heads.set(change.docId, next);
+          written.set(change.docId, next);
+          records.push({ ...record, version: decision.version, revision });
+          audits.push({ projectId, actorId: user.id, action: auditAction(change, doc), target: change.docId, detail: { kind: change.kind, version: decision.version } });
+          outcome = { accepted: { changeId: change.changeId, docId: change.docId, version: decision.version, revision } };
+        }
+        outcomes.set(change.changeId, outcome);
+        answer(outcome);
       }
-      outcomes.set(change.changeId, outcome);
-      answer(outcome);
+      answers.push({ revision, accepted, conflicts });
     }
 
-    // One statement per table, whatever the size of the push: each round trip is time the project stays locked.
+    // One statement per table, however many changes: each round trip is time the project stays locked.
     if (written.size) {
       await repos.documents
         .createQueryBuilder()
@@ -147,7 +170,7 @@ export class SyncService {
     if (records.length) await insertRow(repos.changes, records);
     if (audits.length) await recordAudits(repos, now, audits);
     if (revision !== startRevision) await repos.projects.update({ id: projectId }, { revision, updatedAt: now });
-    return { revision, accepted, conflicts };
+    return answers;
   }
 
   /** Every upload a push names must exist in the project, checked before anything is applied. */

@@ -246,4 +246,49 @@ describe('concurrent pushes', () => {
     const revisions = results.flatMap((r) => r.accepted.map((a) => a.revision)).sort((a, b) => a - b);
     expect(revisions).toEqual(Array.from({ length: 40 }, (_, i) => start + 1 + i));
   });
+
+  it('answer each push with its own changes, in the order sent, though pushes waiting together share a transaction', async () => {
+    const sent = Array.from({ length: 12 }, (_, i) => [
+      { changeId: id('own'), docId: id('doc'), kind: 'note' as const, baseVersion: 0, body: `first ${i}` },
+      { changeId: id('own'), docId: id('doc'), kind: 'note' as const, baseVersion: 0, body: `second ${i}` },
+    ]);
+    const results = await Promise.all(sent.map((changes, i) => push(i % 2 ? crew.editor.accessToken : crew.owner.accessToken, changes)));
+    results.forEach((r, i) => {
+      expect(r.accepted.map((a) => a.changeId)).toEqual(sent[i].map((c) => c.changeId));
+      expect(r.accepted[1].revision).toBe(r.accepted[0].revision + 1);
+      expect(r.revision).toBeGreaterThanOrEqual(r.accepted[1].revision);
+    });
+    const audit = await request(t.app).get(`/api/projects/${crew.projectId}/audit?limit=24`).set(bearer(crew.viewer.accessToken)).expect(200);
+    const byDoc = new Map(sent.flatMap((changes, i) => changes.map((c) => [c.docId, i % 2 ? crew.editor.user.id : crew.owner.user.id])));
+    const created = audit.body.entries.filter((e: { target: string }) => byDoc.has(e.target));
+    expect(created).toHaveLength(24);
+    for (const e of created) expect(e).toMatchObject({ action: 'document.create', actorId: byDoc.get(e.target) });
+  });
+
+  it('the same push sent twice at once (its answer lost, re-sent before the first was done) applies once and answers alike', async () => {
+    const doc = id('doc');
+    const changes: ChangeInput[] = [{ changeId: id('twice'), docId: doc, kind: 'note', baseVersion: 0, body: 'once' }];
+    const [a, b] = await Promise.all([push(crew.editor.accessToken, changes), push(crew.editor.accessToken, changes)]);
+    expect(b.accepted).toEqual(a.accepted);
+    expect(a.accepted[0].version).toBe(1);
+    const rows = await t.server.dataSource.getRepository(DocumentSchema).find({ select: { version: true, body: true }, where: { docId: doc } });
+    expect(rows).toEqual([{ version: 1, body: JSON.stringify('once') }]);
+  });
+
+  it('two edits of one document in one push apply in order; a concurrent edit from the first base is stale', async () => {
+    const doc = id('doc');
+    const [mine, theirs] = await Promise.all([
+      push(crew.editor.accessToken, [
+        { changeId: id('c'), docId: doc, kind: 'note', baseVersion: 0, body: 'v1' },
+        { changeId: id('c'), docId: doc, kind: 'note', baseVersion: 1, body: 'v2' },
+      ]),
+      push(crew.owner.accessToken, [{ changeId: id('c'), docId: doc, kind: 'note', baseVersion: 1, body: 'theirs' }]),
+    ]);
+    expect(mine.accepted.map((a) => a.version)).toEqual([1, 2]);
+    expect(mine.accepted[1].revision).toBe(mine.accepted[0].revision + 1);
+    expect(theirs.accepted).toEqual([]);
+    expect(theirs.conflicts[0]).toMatchObject({ docId: doc, reason: 'stale', server: { version: 2, body: 'v2' } });
+    const pulled = (await pull(crew.viewer.accessToken, mine.accepted[0].revision - 1, '&limit=1000')).changes.filter((d) => d.docId === doc);
+    expect(pulled).toMatchObject([{ version: 2, revision: mine.accepted[1].revision, body: 'v2' }]);
+  });
 });
