@@ -19,14 +19,7 @@ export interface AuditInput {
 
 /** Append one entry inside the caller's transaction, so the log and the change commit together. */
 export async function recordAudit(repos: Repos, at: string, entry: AuditInput): Promise<void> {
-  await insertRow(repos.audit, {
-    projectId: entry.projectId,
-    actorId: entry.actorId,
-    action: entry.action,
-    target: entry.target ?? null,
-    detail: entry.detail === undefined ? null : JSON.stringify(entry.detail),
-    at,
-  });
+  await recordAudits(repos, at, [entry]);
 }
 
 /** Append several entries inside the caller's transaction with one statement, listed in the order given. */

@@ -1,5 +1,5 @@
 import type { CohomologyReport, Method } from './CohomologyReport';
-import { computeCohomology } from './computeCohomology';
+import { computeCohomology, round } from './computeCohomology';
 import { computeSections, type SectionsReport } from './computeSections';
 import type { FieldSpec } from './fields/FieldSpec';
 import { readModelOrThrow, readModelTextOrThrow } from './model/readModel';
@@ -23,10 +23,15 @@ export function cohomology(json: unknown, options: CohomologyOptions = {}): Coho
   // Drop this frame's hold on the parsed file: on a large model its object
   // graph dominates the heap, and every later collection would trace it.
   json = undefined;
-  const t1 = performance.now();
+  return computeAfterRead(sheaf, t0, options);
+}
+
+/** Compute on a sheaf read since t0, the read counted in the build and total times. */
+function computeAfterRead(sheaf: Sheaf<unknown>, t0: number, options: CohomologyOptions): CohomologyReport {
+  const readMs = performance.now() - t0;
   const { report } = computeCohomology(sheaf, options);
-  report.ms.build = Math.round((report.ms.build + t1 - t0) * 10) / 10;
-  report.ms.total = Math.round((report.ms.total + t1 - t0) * 10) / 10;
+  report.ms.build = round(report.ms.build + readMs);
+  report.ms.total = round(report.ms.total + readMs);
   return report;
 }
 
@@ -45,12 +50,7 @@ export function sections(json: unknown, degree: number, options: CohomologyOptio
  */
 export function cohomologyOfText(text: string, options: CohomologyOptions = {}): CohomologyReport {
   const t0 = performance.now();
-  const sheaf: Sheaf<unknown> = readModelTextOrThrow(text, { field: options.field });
-  const t1 = performance.now();
-  const { report } = computeCohomology(sheaf, options);
-  report.ms.build = Math.round((report.ms.build + t1 - t0) * 10) / 10;
-  report.ms.total = Math.round((report.ms.total + t1 - t0) * 10) / 10;
-  return report;
+  return computeAfterRead(readModelTextOrThrow(text, { field: options.field }), t0, options);
 }
 
 /** As {@link sections}, for a model file's text. */

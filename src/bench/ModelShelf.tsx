@@ -13,6 +13,7 @@ import { ConfirmDialog } from '../ui/ConfirmDialog';
 import { Kbd } from '../ui/Kbd';
 import { ProblemList } from '../ui/ProblemList';
 import { ProgressBar } from '../ui/ProgressBar';
+import { RenameForm } from '../ui/RenameForm';
 import { importThroughWorker } from '../workers/engineClient';
 import { useModels } from './useModelData';
 
@@ -106,7 +107,11 @@ export function ModelShelf({ projectId, modelId, readOnly = false }: { projectId
           <li key={m.id} className={`group rounded px-2 py-1.5 ${m.id === modelId ? 'bg-glued-soft' : 'hover:bg-rule-soft'}`}>
             {renaming === m.id ? (
               <RenameForm
-                model={m}
+                initial={m.name}
+                label="Model name"
+                save={async (name) => {
+                  await recordModelSaved(appDb(), await renameModel(appDb(), m.id, name));
+                }}
                 onDone={() => {
                   setRenaming(undefined);
                   void qc.invalidateQueries({ queryKey: ['models', projectId] });
@@ -160,39 +165,6 @@ export function ModelShelf({ projectId, modelId, readOnly = false }: { projectId
         }}
       />
     </section>
-  );
-}
-
-function RenameForm({ model, onDone }: { model: ModelRow; onDone(): void }) {
-  const [name, setName] = useState(model.name);
-  const [error, setError] = useState<string>();
-  return (
-    <form
-      className="flex flex-col gap-1"
-      onSubmit={(e) => {
-        e.preventDefault();
-        void (async () => {
-          try {
-            const next = await renameModel(appDb(), model.id, name);
-            await recordModelSaved(appDb(), next);
-            onDone();
-          } catch (err) {
-            setError((err as Error).message);
-          }
-        })();
-      }}
-    >
-      <input aria-label="Model name" autoFocus value={name} onChange={(e) => setName(e.target.value)} onKeyDown={(e) => e.key === 'Escape' && onDone()} className="rounded border border-rule bg-paper px-2 py-0.5 text-sm" />
-      <span className="flex gap-1">
-        <Button type="submit" className="text-xs">
-          Save name
-        </Button>
-        <Button tone="quiet" type="button" className="text-xs" onClick={onDone}>
-          Cancel
-        </Button>
-      </span>
-      {error && <span role="alert" className="text-xs text-odds">{error}</span>}
-    </form>
   );
 }
 

@@ -6,6 +6,7 @@ import { recordReadingsDeleted, recordReadingsSaved } from '../sync/recordChange
 import { download, stem } from '../kits/download';
 import { Button } from '../ui/Button';
 import { ConfirmDialog } from '../ui/ConfirmDialog';
+import { RenameForm } from '../ui/RenameForm';
 
 /** The model's saved readings sets: pick one to check; rename, download, delete (after a question). */
 export function ReadingsShelf({ rows, selected, onSelect, readOnly, modelId }: { rows: ReadingsRow[]; selected?: string; onSelect(r: ReadingsRow): void; readOnly: boolean; modelId: string }) {
@@ -22,8 +23,12 @@ export function ReadingsShelf({ rows, selected, onSelect, readOnly, modelId }: {
         {rows.map((r) => (
           <li key={r.id} className={`group rounded px-2 py-1.5 ${r.id === selected ? 'bg-glued-soft' : 'hover:bg-rule-soft'}`}>
             {renaming === r.id ? (
-              <RenameReadings
-                row={r}
+              <RenameForm
+                initial={r.name}
+                label="Readings name"
+                save={async (name) => {
+                  await recordReadingsSaved(appDb(), await updateReadings(appDb(), r.id, { name }));
+                }}
                 onDone={() => {
                   setRenaming(undefined);
                   refresh();
@@ -73,38 +78,5 @@ export function ReadingsShelf({ rows, selected, onSelect, readOnly, modelId }: {
         }}
       />
     </>
-  );
-}
-
-function RenameReadings({ row, onDone }: { row: ReadingsRow; onDone(): void }) {
-  const [name, setName] = useState(row.name);
-  const [error, setError] = useState<string>();
-  return (
-    <form
-      className="flex flex-col gap-1"
-      onSubmit={(e) => {
-        e.preventDefault();
-        void (async () => {
-          try {
-            const next = await updateReadings(appDb(), row.id, { name });
-            await recordReadingsSaved(appDb(), next);
-            onDone();
-          } catch (err) {
-            setError((err as Error).message);
-          }
-        })();
-      }}
-    >
-      <input aria-label="Readings name" autoFocus value={name} onChange={(e) => setName(e.target.value)} onKeyDown={(e) => e.key === 'Escape' && onDone()} className="rounded border border-rule bg-paper px-2 py-0.5 text-sm" />
-      <span className="flex gap-1">
-        <Button type="submit" className="text-xs">
-          Save name
-        </Button>
-        <Button tone="quiet" type="button" className="text-xs" onClick={onDone}>
-          Cancel
-        </Button>
-      </span>
-      {error && <span role="alert" className="text-xs text-odds">{error}</span>}
-    </form>
   );
 }

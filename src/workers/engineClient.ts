@@ -25,10 +25,7 @@ export function resetEngine(): void {
   remote = undefined;
 }
 
-export interface RunHandle {
-  result: Promise<RunRecord>;
-  cancel(): void;
-}
+export type RunHandle = Cancellable<RunRecord>;
 
 /** Thrown into `result` when the user cancelled. */
 export class RunCancelled extends Error {
@@ -38,27 +35,19 @@ export class RunCancelled extends Error {
   }
 }
 
-/**
- * Start a run in the worker. A synchronous computation cannot poll for a
- * message, so cancel terminates the worker: the page stays responsive and
- * nothing half-written reaches the store (the run is saved only at the end).
- */
-export function startRun(modelId: string, settings: RunSettings, onProgress: (p: Progress) => void): RunHandle {
-  const api = engine();
-  let cancel!: () => void;
-  const cancelled = new Promise<never>((_, reject) => {
-    cancel = () => {
-      resetEngine();
-      reject(new RunCancelled());
-    };
-  });
-  const result = Promise.race([api.run(modelId, settings, Comlink.proxy(onProgress)), cancelled]);
-  return { result, cancel };
+/** A computation in the worker that the user can stop, with its result. */
+export interface Cancellable<T> {
+  result: Promise<T>;
+  cancel(): void;
 }
 
-/** A mesh kit computation that can be stopped the same way as a run: by terminating the worker. */
-export function meshThroughWorker(name: string, data: string | Blob, settings: MeshSettings, onProgress: (p: Progress) => void): { result: Promise<KitOutcome<MeshResult>>; cancel(): void } {
-  const api = engine();
+/**
+ * Start work in the worker that can be cancelled. A synchronous computation
+ * cannot poll for a message, so cancel terminates the worker: the page stays
+ * responsive and nothing half-written reaches the store (results are saved
+ * only at the end).
+ */
+function cancellable<T>(start: (api: Remote) => Promise<T>): Cancellable<T> {
   let cancel!: () => void;
   const cancelled = new Promise<never>((_, reject) => {
     cancel = () => {
@@ -66,7 +55,17 @@ export function meshThroughWorker(name: string, data: string | Blob, settings: M
       reject(new RunCancelled());
     };
   });
-  return { result: Promise.race([api.meshTopology(name, data, Comlink.proxy(onProgress), settings), cancelled]), cancel };
+  return { result: Promise.race([start(engine()), cancelled]), cancel };
+}
+
+/** Start a run in the worker; cancel stops it. */
+export function startRun(modelId: string, settings: RunSettings, onProgress: (p: Progress) => void): RunHandle {
+  return cancellable((api) => api.run(modelId, settings, Comlink.proxy(onProgress)));
+}
+
+/** A mesh kit computation that can be stopped the same way as a run. */
+export function meshThroughWorker(name: string, data: string | Blob, settings: MeshSettings, onProgress: (p: Progress) => void): Cancellable<KitOutcome<MeshResult>> {
+  return cancellable<KitOutcome<MeshResult>>((api) => api.meshTopology(name, data, Comlink.proxy(onProgress), settings));
 }
 
 /** Import through the worker with progress, so a large file never blocks the page. */
@@ -74,15 +73,7 @@ export function importThroughWorker(projectId: string, file: File, onProgress: (
   return engine().importFile(projectId, file.name, file, Comlink.proxy(onProgress));
 }
 
-/** Check a saved readings file against its model in the worker; cancel terminates the worker, as for a run (nothing is saved either way). */
-export function checkReadingsThroughWorker(modelId: string, readingsId: string, onProgress: (p: Progress) => void): { result: Promise<ReadingsCheckOutcome>; cancel(): void } {
-  const api = engine();
-  let cancel!: () => void;
-  const cancelled = new Promise<never>((_, reject) => {
-    cancel = () => {
-      resetEngine();
-      reject(new RunCancelled());
-    };
-  });
-  return { result: Promise.race([api.checkReadings(modelId, readingsId, Comlink.proxy(onProgress)), cancelled]), cancel };
+/** Check a saved readings file against its model in the worker; cancel stops it as for a run (nothing is saved either way). */
+export function checkReadingsThroughWorker(modelId: string, readingsId: string, onProgress: (p: Progress) => void): Cancellable<ReadingsCheckOutcome> {
+  return cancellable<ReadingsCheckOutcome>((api) => api.checkReadings(modelId, readingsId, Comlink.proxy(onProgress)));
 }

@@ -37,7 +37,7 @@ export function readModelText(text: string, options: ReadOptions = {}): ReadResu
   let rest: unknown;
   try {
     rest = JSON.parse(split.rest);
-  } catch (err) {
+  } catch {
     // Report the error against the file as written, not the shortened text.
     return readParsed(JSON.parse(text), undefined, options);
   }
